@@ -1,0 +1,40 @@
+import { cp } from 'node:fs/promises'
+import { resolve } from 'node:path'
+
+export default defineNuxtConfig({
+  // Root-level layout: keep Nuxt from switching to an `app/` folder if one ever appears.
+  srcDir: '.',
+  serverDir: 'server',
+  compatibilityDate: '2026-01-01',
+  devtools: { enabled: false },
+  telemetry: false,
+  modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils'],
+  css: ['~/assets/css/main.css'],
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Switchback',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1, viewport-fit=cover' },
+        { name: 'description', content: 'Strength, hill and drill routines for running coaches and their athletes.' },
+        { name: 'theme-color', content: '#1f4d3a' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  typescript: { strict: true },
+  eslint: { config: { stylistic: true } },
+  imports: { dirs: ['stores', 'composables'] },
+  nitro: {
+    experimental: { tasks: false },
+    hooks: {
+      // The built server migrates its database at start, so it ships the migrations beside itself.
+      async compiled(nitro) {
+        await cp(resolve(nitro.options.rootDir, 'server/db/migrations'), resolve(nitro.options.output.serverDir, 'migrations'), { recursive: true })
+      },
+    },
+  },
+  runtimeConfig: {
+    session: { maxAge: 60 * 60 * 24 * 30, password: '' },
+  },
+})

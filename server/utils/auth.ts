@@ -1,0 +1,61 @@
+import type { H3Event } from 'h3'
+import { and, eq } from 'drizzle-orm'
+import type { Role } from '../../shared/types/domain'
+import { memberships, teams, users } from '../db/schema'
+
+const rank: Record<Role, number> = { athlete: 0, coach: 1, head_coach: 2 }
+
+export interface Caller {
+  userId: number
+  teamId: number
+  role: Role
+  name: string
+  email: string
+  timezone: string
+  teamName: string
+}
+
+export function isCoachRole(role: Role) {
+  return rank[role] >= rank.coach
+}
+
+/**
+ * Who is calling, with their role in the team their session is for.
+ * 401 when signed out (or the membership is gone), 403 when the role is below `minimum`.
+ */
+export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete'): Promise<Caller> {
+  const session = await getUserSession(event)
+  if (!session.user || !session.teamId) {
+    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Sign in first' })
+  }
+  const db = await useDb()
+  const [row] = await db.select({
+    role: memberships.role,
+    name: users.name,
+    email: users.email,
+    timezone: users.timezone,
+    teamName: teams.name,
+  }).from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .innerJoin(teams, eq(teams.id, memberships.teamId))
+    .where(and(eq(memberships.userId, session.user.id), eq(memberships.teamId, session.teamId)))
+    .limit(1)
+  if (!row) {
+    await clearUserSession(event)
+    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Your membership has ended; sign in again' })
+  }
+  if (rank[row.role] < rank[minimum]) {
+    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: minimum === 'athlete' ? 'Not allowed' : 'Only coaches can do this' })
+  }
+  event.context.caller = { userId: session.user.id, teamId: session.teamId, ...row }
+  return event.context.caller as Caller
+}
+
+export async function requireCoach(event: H3Event) {
+  return requireTeamRole(event, 'coach')
+}
+
+/** The role in the session only shapes the client; every route re-reads it from the database. */
+export async function signIn(event: H3Event, user: { id: number, name: string, email: string }, teamId: number, role: Role) {
+  await replaceUserSession(event, { user: { id: user.id, name: user.name, email: user.email }, teamId, role, loggedInAt: Date.now() })
+}

@@ -1,0 +1,37 @@
+import { z } from 'zod'
+
+const configSchema = z.object({
+  databaseUrl: z.string().min(1).default('file:.data/switchback.db'),
+  appUrl: z.string().url().default('http://localhost:3000'),
+  smtpUrl: z.string().default('smtp://127.0.0.1:1025'),
+  mailFrom: z.string().default('Switchback <no-reply@switchback.local>'),
+  s3Endpoint: z.string().default('http://127.0.0.1:4569'),
+  s3PublicEndpoint: z.string().optional(),
+  s3Region: z.string().default('us-east-1'),
+  s3Bucket: z.string().default('switchback-media'),
+  s3AccessKeyId: z.string().default('S3RVER'),
+  s3SecretAccessKey: z.string().default('S3RVER'),
+  outboxIntervalMs: z.coerce.number().int().positive().default(2000),
+})
+
+export type AppConfig = z.infer<typeof configSchema>
+
+let cached: AppConfig | undefined
+
+/** Configuration read from the environment at run time (never baked into the build). */
+export function useAppConfig(): AppConfig {
+  cached ??= configSchema.parse({
+    databaseUrl: process.env.DATABASE_URL || undefined,
+    appUrl: process.env.APP_URL || undefined,
+    smtpUrl: process.env.SMTP_URL || undefined,
+    mailFrom: process.env.MAIL_FROM || undefined,
+    s3Endpoint: process.env.S3_ENDPOINT || undefined,
+    s3PublicEndpoint: process.env.S3_PUBLIC_ENDPOINT || undefined,
+    s3Region: process.env.S3_REGION || undefined,
+    s3Bucket: process.env.S3_BUCKET || undefined,
+    s3AccessKeyId: process.env.S3_ACCESS_KEY_ID || undefined,
+    s3SecretAccessKey: process.env.S3_SECRET_ACCESS_KEY || undefined,
+    outboxIntervalMs: process.env.OUTBOX_INTERVAL_MS || undefined,
+  })
+  return cached
+}

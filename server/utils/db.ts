@@ -1,0 +1,15 @@
+import { migrateDatabase, openDatabase, type Database } from '../db/client'
+
+let database: Promise<Database> | undefined
+
+/** The one way to reach the database: opened and migrated once per process. */
+export function useDb(): Promise<Database> {
+  database ??= (async () => {
+    const db = await openDatabase(useAppConfig().databaseUrl)
+    await migrateDatabase(db)
+    return db
+  })()
+  return database
+}
+
+export * as tables from '../db/schema'
