@@ -3,13 +3,9 @@ import { resolve } from 'node:path'
 
 export default defineNuxtConfig({
   // Root-level layout: keep Nuxt from switching to an `app/` folder if one ever appears.
-  srcDir: '.',
-  serverDir: 'server',
-  compatibilityDate: '2026-01-01',
-  devtools: { enabled: false },
-  telemetry: false,
   modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils'],
-  css: ['~/assets/css/main.css'],
+  imports: { dirs: ['stores', 'composables'] },
+  devtools: { enabled: false },
   app: {
     head: {
       htmlAttrs: { lang: 'en' },
@@ -22,9 +18,13 @@ export default defineNuxtConfig({
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
     },
   },
-  typescript: { strict: true },
-  eslint: { config: { stylistic: true } },
-  imports: { dirs: ['stores', 'composables'] },
+  css: ['~/assets/css/main.css'],
+  runtimeConfig: {
+    session: { maxAge: 60 * 60 * 24 * 30, password: '' },
+  },
+  srcDir: '.',
+  serverDir: 'server',
+  compatibilityDate: '2026-01-01',
   nitro: {
     experimental: { tasks: false },
     hooks: {
@@ -34,7 +34,7 @@ export default defineNuxtConfig({
       },
     },
   },
-  runtimeConfig: {
-    session: { maxAge: 60 * 60 * 24 * 30, password: '' },
-  },
+  typescript: { strict: true },
+  telemetry: false,
+  eslint: { config: { stylistic: true } },
 })

@@ -36,8 +36,8 @@ export default <Partial<Config>>{
       },
       fontSize: {
         // A type scale that stays legible at arm's length on a phone.
-        'step': ['clamp(2.25rem, 9vw, 4.5rem)', { lineHeight: '1.05', fontWeight: '600' }],
-        'clock': ['clamp(4.5rem, 24vw, 11rem)', { lineHeight: '1', fontWeight: '600' }],
+        step: ['clamp(2.25rem, 9vw, 4.5rem)', { lineHeight: '1.05', fontWeight: '600' }],
+        clock: ['clamp(4.5rem, 24vw, 11rem)', { lineHeight: '1', fontWeight: '600' }],
       },
     },
   },

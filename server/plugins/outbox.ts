@@ -2,7 +2,7 @@
 export default defineNitroPlugin((nitro) => {
   const timer = setInterval(() => {
     processOutbox().catch(error => console.error('Outbox run failed:', error))
-  }, useAppConfig().outboxIntervalMs)
+  }, useServerConfig().outboxIntervalMs)
   timer.unref()
   nitro.hooks.hook('close', () => clearInterval(timer))
 })

@@ -19,7 +19,7 @@ export type AppConfig = z.infer<typeof configSchema>
 let cached: AppConfig | undefined
 
 /** Configuration read from the environment at run time (never baked into the build). */
-export function useAppConfig(): AppConfig {
+export function useServerConfig(): AppConfig {
   cached ??= configSchema.parse({
     databaseUrl: process.env.DATABASE_URL || undefined,
     appUrl: process.env.APP_URL || undefined,

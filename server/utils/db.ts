@@ -5,7 +5,7 @@ let database: Promise<Database> | undefined
 /** The one way to reach the database: opened and migrated once per process. */
 export function useDb(): Promise<Database> {
   database ??= (async () => {
-    const db = await openDatabase(useAppConfig().databaseUrl)
+    const db = await openDatabase(useServerConfig().databaseUrl)
     await migrateDatabase(db)
     return db
   })()

@@ -30,7 +30,7 @@ export async function sendInvite(db: Pick<Database, 'insert' | 'update'>, invite
     to: invite.email,
     template: 'invite',
     teamId: invite.teamId,
-    payload: { inviterName, teamName, role: invite.role, url: `${useAppConfig().appUrl}/join/${token}` },
+    payload: { inviterName, teamName, role: invite.role, url: `${useServerConfig().appUrl}/join/${token}` },
   })
   return { expiresAt }
 }

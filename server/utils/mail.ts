@@ -20,7 +20,7 @@ let transport: Transporter | undefined
 
 function useTransport() {
   if (!transport) {
-    const url = new URL(useAppConfig().smtpUrl)
+    const url = new URL(useServerConfig().smtpUrl)
     const loopback = ['127.0.0.1', 'localhost', '[::1]'].includes(url.hostname)
     transport = nodemailer.createTransport({
       host: url.hostname,
@@ -57,7 +57,7 @@ export function processOutbox(): Promise<number> {
         .set({ status: 'sending', lockedUntil: new Date(now + LOCK_MS), attempts: sql`${emailOutbox.attempts} + 1` })
         .where(inArray(emailOutbox.id, due))
         .returning()
-      const { mailFrom } = useAppConfig()
+      const { mailFrom } = useServerConfig()
       for (const message of claimed) {
         try {
           const rendered = renderEmail(message.template, message.payload)

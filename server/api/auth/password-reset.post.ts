@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
     const { token, hash } = newToken()
     await db.transaction(async (tx) => {
       await tx.insert(passwordResets).values({ userId: user.id, tokenHash: hash, expiresAt: new Date(Date.now() + 3600_000) })
-      await enqueueEmail(tx, { to: email, template: 'password_reset', payload: { url: `${useAppConfig().appUrl}/reset/${token}` } })
+      await enqueueEmail(tx, { to: email, template: 'password_reset', payload: { url: `${useServerConfig().appUrl}/reset/${token}` } })
     })
   }
   setResponseStatus(event, 202)

@@ -1,0 +1,63 @@
+import type { z } from 'zod'
+import { fieldErrors } from '#shared/utils/errors'
+
+interface ServerError {
+  data?: { message?: string, data?: { fields?: Record<string, string> } }
+  statusCode?: number
+  message?: string
+}
+
+/**
+ * Form state checked with the same zod schema the server uses: errors show once a field is touched
+ * (or after a submit), and field messages from a 4xx answer land beside their fields.
+ */
+export function useZodForm<S extends z.ZodObject>(schema: S, initial: z.input<S>) {
+  const values = reactive({ ...initial }) as z.input<S>
+  const touched = reactive<Record<string, boolean>>({})
+  const serverErrors = ref<Record<string, string>>({})
+  const formError = ref('')
+  const submitted = ref(false)
+  const pending = ref(false)
+
+  const clientErrors = computed(() => {
+    const result = schema.safeParse(values)
+    return result.success ? {} : fieldErrors(result.error)
+  })
+
+  const errors = computed(() => {
+    const shown: Record<string, string> = {}
+    for (const [field, message] of Object.entries(clientErrors.value)) {
+      if (submitted.value || touched[field]) shown[field] = message
+    }
+    return { ...shown, ...serverErrors.value }
+  })
+
+  function touch(field: string) {
+    touched[field] = true
+    serverErrors.value = Object.fromEntries(Object.entries(serverErrors.value).filter(([key]) => key !== field))
+  }
+
+  async function submit(action: (data: z.output<S>) => Promise<void>) {
+    submitted.value = true
+    formError.value = ''
+    serverErrors.value = {}
+    const result = schema.safeParse(values)
+    if (!result.success) return
+    pending.value = true
+    try {
+      await action(result.data)
+    }
+    catch (error) {
+      const response = error as ServerError
+      const fields = response.data?.data?.fields ?? {}
+      const { _: general, ...rest } = fields
+      serverErrors.value = rest
+      formError.value = general ?? (Object.keys(rest).length ? '' : (response.data?.message ?? response.message ?? 'Something went wrong; try again'))
+    }
+    finally {
+      pending.value = false
+    }
+  }
+
+  return { values, errors, formError, pending, touch, submit }
+}

@@ -1,0 +1,14 @@
+// Shapes the experience only: the server checks every call on its own.
+const publicPages = ['/login', '/register', '/reset', '/join']
+
+export default defineNuxtRouteMiddleware((to) => {
+  const { loggedIn, session } = useUserSession()
+  const isPublic = publicPages.some(prefix => to.path === prefix || to.path.startsWith(`${prefix}/`)) || to.meta.public === true
+  if (!loggedIn.value) {
+    if (isPublic) return
+    return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : undefined })
+  }
+  const isCoach = session.value?.role === 'coach' || session.value?.role === 'head_coach'
+  if (to.path === '/login' || to.path === '/register' || to.path === '/') return navigateTo(isCoach ? '/coach' : '/today')
+  if (to.meta.coachOnly && !isCoach) return navigateTo('/today')
+})

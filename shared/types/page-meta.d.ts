@@ -1,0 +1,8 @@
+declare module '#app' {
+  interface PageMeta {
+    coachOnly?: boolean
+    public?: boolean
+  }
+}
+
+export {}

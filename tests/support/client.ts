@@ -1,0 +1,49 @@
+/** A small HTTP client with its own cookie jar: one per signed-in person in a test. */
+export class ApiClient {
+  private cookies = new Map<string, string>()
+
+  constructor(readonly baseUrl: string, readonly headers: Record<string, string> = {}) {}
+
+  async request<T = unknown>(method: string, path: string, body?: unknown, init: { raw?: string, headers?: Record<string, string> } = {}) {
+    const headers: Record<string, string> = { accept: 'application/json', ...this.headers, ...init.headers }
+    if (body !== undefined || init.raw !== undefined) headers['content-type'] = 'application/json'
+    if (this.cookies.size) headers.cookie = [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ')
+    const response = await fetch(new URL(path, this.baseUrl), {
+      method,
+      headers,
+      body: init.raw ?? (body === undefined ? undefined : JSON.stringify(body)),
+      redirect: 'manual',
+    })
+    for (const cookie of response.headers.getSetCookie()) {
+      const [pair] = cookie.split(';')
+      const index = pair!.indexOf('=')
+      const name = pair!.slice(0, index)
+      const value = pair!.slice(index + 1)
+      if (value === '' || /max-age=0/i.test(cookie)) this.cookies.delete(name)
+      else this.cookies.set(name, value)
+    }
+    const text = await response.text()
+    let data: unknown = text
+    try {
+      data = text ? JSON.parse(text) : null
+    }
+    catch {
+      // not JSON: keep the text
+    }
+    return { status: response.status, headers: response.headers, data: data as T, text }
+  }
+
+  get<T = unknown>(path: string) { return this.request<T>('GET', path) }
+  post<T = unknown>(path: string, body?: unknown) { return this.request<T>('POST', path, body ?? {}) }
+  put<T = unknown>(path: string, body?: unknown) { return this.request<T>('PUT', path, body) }
+  patch<T = unknown>(path: string, body?: unknown) { return this.request<T>('PATCH', path, body) }
+  delete<T = unknown>(path: string) { return this.request<T>('DELETE', path) }
+}
+
+let counter = 0
+export function uniqueEmail(prefix = 'person') {
+  counter += 1
+  return `${prefix}.${Date.now().toString(36)}${counter}@example.test`
+}
+
+export interface FieldError { statusCode: number, message: string, data?: { fields?: Record<string, string> } }
