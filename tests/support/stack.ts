@@ -101,8 +101,11 @@ export async function startStack(extraEnv: Record<string, string> = {}): Promise
   async function startApp() {
     output = ''
     child = spawn(process.execPath, [join(root, '.output/server/index.mjs')], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] })
-    child.stdout?.on('data', (chunk) => { output += chunk })
-    child.stderr?.on('data', (chunk) => { output += chunk })
+    const collect = (chunk: Buffer) => {
+      output += chunk.toString()
+    }
+    child.stdout?.on('data', collect)
+    child.stderr?.on('data', collect)
     await waitForServer(url, child, () => output)
   }
   async function stopApp() {
