@@ -1,0 +1,7 @@
+import { migrateDatabase, openDatabase } from '../server/db/client'
+
+const url = process.env.DATABASE_URL ?? 'file:.data/switchback.db'
+const db = await openDatabase(url)
+await migrateDatabase(db)
+db.$client.close()
+console.log(`Migrated ${url}`)

@@ -1,0 +1,31 @@
+import { mkdirSync, mkdtempSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
+import { chromium, type Browser, type BrowserContext } from 'playwright-core'
+
+export const artifacts = resolve(import.meta.dirname, '../artifacts')
+
+export const viewports = {
+  phone: { width: 390, height: 844 },
+  desktop: { width: 1280, height: 800 },
+} as const
+
+/** Debian's Chromium through playwright-core; no browser is downloaded. */
+export async function launchBrowser(): Promise<Browser> {
+  mkdtempSync(join(tmpdir(), 'switchback-chromium-'))
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--autoplay-policy=no-user-gesture-required'],
+  })
+}
+
+export async function newContext(browser: Browser, size: keyof typeof viewports = 'desktop'): Promise<BrowserContext> {
+  const context = await browser.newContext({ viewport: viewports[size], isMobile: size === 'phone', hasTouch: size === 'phone' })
+  context.setDefaultTimeout(15_000)
+  return context
+}
+
+export function screenshotPath(name: string) {
+  mkdirSync(artifacts, { recursive: true })
+  return join(artifacts, `${name}.png`)
+}
