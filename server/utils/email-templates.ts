@@ -1,4 +1,5 @@
 // Plain-text and simple HTML bodies for every message the app sends, in our own words.
+import { formatDay, isCalendarDay } from '../../shared/utils/dates'
 
 export interface RenderedEmail {
   subject: string
@@ -21,6 +22,8 @@ function layout(title: string, paragraphs: string[], link?: { url: string, label
 type Payload = Record<string, unknown>
 const str = (payload: Payload, key: string) => String(payload[key] ?? '')
 
+const calendarDay = (day: string) => isCalendarDay(day) ? formatDay(day) : day
+
 export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail> = {
   invite(payload) {
     const who = str(payload, 'inviterName')
@@ -35,6 +38,23 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
       subject: `${who} invited you to ${team}`,
       text: `${lines.join('\n\n')}\n\n${url}\n\nIf you were not expecting this, you can ignore this message.`,
       html: layout(`Join ${team}`, [...lines, 'If you were not expecting this, you can ignore this message.'], { url, label: 'Accept the invitation' }),
+    }
+  },
+  assignments_created(payload) {
+    const coach = str(payload, 'coachName')
+    const title = str(payload, 'title')
+    const note = str(payload, 'note')
+    const url = str(payload, 'url')
+    const dates = (Array.isArray(payload.dates) ? payload.dates : []).map(day => calendarDay(String(day)))
+    const count = dates.length === 1 ? 'one session' : `${dates.length} sessions`
+    const intro = `Hello ${str(payload, 'athleteName')}, ${coach} has planned ${count} of "${title}" for you with ${str(payload, 'teamName')}:`
+    const closing = 'Open Switchback on the day for the steps, timings and cautions. You can turn these e-mails off on your Today page.'
+    const list = dates.map(day => `- ${day}`).join('\n')
+    const noteText = note ? `\n\nNote from your coach:\n${note}` : ''
+    return {
+      subject: `New training: ${title} (${count})`,
+      text: `${intro}\n\n${list}${noteText}\n\n${closing}\n\n${url}`,
+      html: layout(`New training: ${title}`, [intro, ...dates, ...(note ? [`Note from your coach: ${note}`] : []), closing], { url, label: 'See your plan' }),
     }
   },
   password_reset(payload) {

@@ -1,0 +1,29 @@
+import { and, eq, gte, notExists } from 'drizzle-orm'
+import { assignments, sessionLogs } from '../../../db/schema'
+import { idParamsSchema } from '../../../../shared/schemas/common'
+import { restOfSeriesQuerySchema } from '../../../../shared/schemas/planner'
+
+/**
+ * Removes this assignment and the later ones of its series: for this athlete (`?who=athlete`, the default)
+ * or for everyone in the series (`?who=all`). Sessions already logged stay.
+ */
+export default defineEventHandler(async (event) => {
+  const caller = await requireCoach(event)
+  const { id } = paramsWith(event, idParamsSchema)
+  const { who } = queryWith(event, restOfSeriesQuerySchema)
+  const db = await useDb()
+  const [assignment] = await db.select().from(assignments).where(and(eq(assignments.id, id), eq(assignments.teamId, caller.teamId))).limit(1)
+  if (!assignment) notFound('No such assignment')
+  if (!assignment.seriesId) {
+    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'id: This assignment is not part of a weekly series', data: { fields: { id: 'This assignment is not part of a weekly series' } } })
+  }
+  const removed = await db.delete(assignments).where(and(
+    eq(assignments.teamId, caller.teamId),
+    eq(assignments.seriesId, assignment.seriesId),
+    gte(assignments.date, assignment.date),
+    who === 'athlete' ? eq(assignments.athleteId, assignment.athleteId) : undefined,
+    eq(assignments.status, 'planned'),
+    notExists(db.select({ id: sessionLogs.id }).from(sessionLogs).where(eq(sessionLogs.assignmentId, assignments.id))),
+  )).returning({ id: assignments.id })
+  return { removed: removed.length, ids: removed.map(row => row.id) }
+})

@@ -1,0 +1,40 @@
+import { and, asc, eq, gte, lte } from 'drizzle-orm'
+import { assignments } from '../../db/schema'
+import { myAssignmentRangeSchema } from '../../../shared/schemas/planner'
+import { shownStatus } from '../../../shared/utils/assignment-status'
+import { addDays, todayIn } from '../../../shared/utils/dates'
+
+/** The caller's own assignments (default: today and the next four weeks), in their time zone. */
+export default defineEventHandler(async (event) => {
+  const caller = await requireTeamRole(event, 'athlete')
+  const query = queryWith(event, myAssignmentRangeSchema)
+  const today = todayIn(caller.timezone)
+  const from = query.from ?? today
+  const to = query.to ?? addDays(from, 27)
+  if (to < from) tooMany('to', 'The end comes before the start')
+  const db = await useDb()
+  const rows = await db.select({
+    id: assignments.id,
+    date: assignments.date,
+    snapshot: assignments.snapshot,
+    note: assignments.note,
+    status: assignments.status,
+    seriesId: assignments.seriesId,
+  }).from(assignments)
+    .where(and(eq(assignments.teamId, caller.teamId), eq(assignments.athleteId, caller.userId), gte(assignments.date, from), lte(assignments.date, to)))
+    .orderBy(asc(assignments.date), asc(assignments.id))
+    .limit(500)
+  return {
+    today,
+    timezone: caller.timezone,
+    from,
+    to,
+    assignments: rows.map(({ snapshot, ...row }) => ({
+      ...row,
+      title: snapshot.title,
+      category: snapshot.category,
+      exerciseCount: snapshot.exercises.length,
+      shownStatus: shownStatus(row.status, row.date, today),
+    })),
+  }
+})

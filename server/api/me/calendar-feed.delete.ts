@@ -1,0 +1,8 @@
+/** Turns the private feed off. */
+export default defineEventHandler(async (event) => {
+  const caller = await requireTeamRole(event, 'athlete')
+  const db = await useDb()
+  await replaceCalendarFeed(db, caller.teamId, caller.userId, { revokeOnly: true })
+  setResponseStatus(event, 204)
+  return null
+})
