@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { idParam, isoDateSchema } from './common'
-import { daysBetween, MAX_PLAN_WEEKS } from '../utils/dates'
+import { daysBetween, isCalendarDay, MAX_PLAN_WEEKS } from '../utils/dates'
 
 export const MAX_BATCH_ATHLETES = 200
 export const MAX_BATCH_DATES = 7 * MAX_PLAN_WEEKS
@@ -37,7 +37,7 @@ export const assignSchema = z.object({
   if (value.dates && value.series) {
     ctx.addIssue({ code: 'custom', path: ['series'], message: 'Choose dates or a weekly repeat, not both' })
   }
-  if (value.dates?.length) {
+  if (value.dates?.length && value.dates.every(isCalendarDay)) {
     const sorted = [...value.dates].sort()
     if (daysBetween(sorted[0]!, sorted.at(-1)!) >= MAX_PLAN_WEEKS * 7) {
       ctx.addIssue({ code: 'custom', path: ['dates'], message: `The dates span more than ${MAX_PLAN_WEEKS} weeks` })
@@ -52,6 +52,7 @@ export const assignmentRangeSchema = z.object({
   athleteId: idParam.optional(),
   squadId: idParam.optional(),
 }).superRefine((value, ctx) => {
+  if (!isCalendarDay(value.from) || !isCalendarDay(value.to)) return
   const span = daysBetween(value.from, value.to)
   if (span < 0) ctx.addIssue({ code: 'custom', path: ['to'], message: 'The end comes before the start' })
   else if (span >= MAX_PLAN_WEEKS * 7) ctx.addIssue({ code: 'custom', path: ['to'], message: `Ask for at most ${MAX_PLAN_WEEKS} weeks at once` })
@@ -61,7 +62,7 @@ export const myAssignmentRangeSchema = z.object({
   from: isoDateSchema.optional(),
   to: isoDateSchema.optional(),
 }).superRefine((value, ctx) => {
-  if (!value.from || !value.to) return
+  if (!value.from || !value.to || !isCalendarDay(value.from) || !isCalendarDay(value.to)) return
   const span = daysBetween(value.from, value.to)
   if (span < 0) ctx.addIssue({ code: 'custom', path: ['to'], message: 'The end comes before the start' })
   else if (span >= MAX_PLAN_WEEKS * 7) ctx.addIssue({ code: 'custom', path: ['to'], message: `Ask for at most ${MAX_PLAN_WEEKS} weeks at once` })

@@ -8,7 +8,8 @@ const FEED_PAST_DAYS = 60
 
 /** One athlete's plan as an iCalendar (RFC 5545) feed of all-day events; the token is the only key. */
 export default defineEventHandler(async (event) => {
-  const raw = getRouterParam(event, 'token') ?? ''
+  // The router names this segment's parameter after the whole file name ("token.ics"): take the one there is.
+  const raw = String(Object.values(getRouterParams(event, { decode: true }))[0] ?? '')
   const token = raw.replace(/\.ics$/, '')
   if (token.length < 20 || token.length > 200) notFound('No such calendar')
   const db = await useDb()
