@@ -1,5 +1,5 @@
 import { and, asc, eq, gte, inArray, lte } from 'drizzle-orm'
-import { assignments, memberships, routines, users } from '../../db/schema'
+import { assignments, assignmentSeries, memberships, routines, users } from '../../db/schema'
 import { assignmentRangeSchema } from '../../../shared/schemas/planner'
 import { shownStatus } from '../../../shared/utils/assignment-status'
 import { todayIn } from '../../../shared/utils/dates'
@@ -34,11 +34,13 @@ export default defineEventHandler(async (event) => {
     latestVersion: routines.version,
     snapshot: assignments.snapshot,
     seriesId: assignments.seriesId,
+    seriesSquadId: assignmentSeries.squadId,
     note: assignments.note,
     status: assignments.status,
   }).from(assignments)
     .innerJoin(users, eq(users.id, assignments.athleteId))
     .innerJoin(routines, eq(routines.id, assignments.routineId))
+    .leftJoin(assignmentSeries, eq(assignmentSeries.id, assignments.seriesId))
     .where(and(...filters))
     .orderBy(asc(assignments.date), asc(users.name), asc(assignments.id))
 
