@@ -1,4 +1,5 @@
 import { and, eq, inArray } from 'drizzle-orm'
+import { createError } from 'h3'
 import type { Database } from '../db/client'
 import { exercises, routines } from '../db/schema'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
@@ -22,10 +23,11 @@ export function exerciseIdsIn(steps: RoutineStep[]): number[] {
 /**
  * A routine as it is now, with the exercises it uses, frozen for an assignment.
  * 404 for another team's routine (or none), 400 for an archived one.
+ * Imports what it uses explicitly so the seeds (plain Node) can call it too.
  */
 export async function snapshotRoutine(db: Reader, teamId: number, routineId: number, field = 'routineId') {
   const [routine] = await db.select().from(routines).where(and(eq(routines.id, routineId), eq(routines.teamId, teamId))).limit(1)
-  if (!routine) notFound('No such routine')
+  if (!routine) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such routine' })
   if (routine.archivedAt) {
     throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${field}: This routine is archived; restore it before assigning it`, data: { fields: { [field]: 'This routine is archived; restore it before assigning it' } } })
   }
