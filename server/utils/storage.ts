@@ -37,7 +37,7 @@ function clientConfig(endpoint: string): S3ClientConfig {
  * The S3 clients: one for the server's own calls, one that signs the URLs the browser uses
  * (the same store, but possibly reached at another address from outside).
  */
-export function useStorage() {
+export function useObjectStore() {
   if (!clients) {
     const config = useServerConfig()
     const server = new S3Client(clientConfig(config.s3Endpoint))
@@ -79,7 +79,7 @@ async function guarded<T>(call: () => Promise<T>): Promise<T> {
 
 /** 503 unless the bucket answers: checked before handing out an upload URL that could never work. */
 export async function assertStorageReachable() {
-  const { server, bucket } = useStorage()
+  const { server, bucket } = useObjectStore()
   try {
     await server.send(new HeadBucketCommand({ Bucket: bucket }))
   }
@@ -100,7 +100,7 @@ export function newExerciseKey(teamId: number, exerciseId: number, contentType: 
 
 /** A PUT URL whose signature fixes the content type and the exact size of the upload. */
 export async function presignUpload(key: string, contentType: string, size: number) {
-  const { presign, bucket } = useStorage()
+  const { presign, bucket } = useObjectStore()
   const url = await getSignedUrl(presign, new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: contentType, ContentLength: size }), {
     expiresIn: UPLOAD_URL_SECONDS,
     signableHeaders: new Set(['content-type', 'content-length']),
@@ -109,14 +109,14 @@ export async function presignUpload(key: string, contentType: string, size: numb
 }
 
 export async function presignPlayback(key: string) {
-  const { presign, bucket } = useStorage()
+  const { presign, bucket } = useObjectStore()
   const url = await getSignedUrl(presign, new GetObjectCommand({ Bucket: bucket, Key: key }), { expiresIn: PLAYBACK_URL_SECONDS })
   return { url, expiresAt: new Date(Date.now() + PLAYBACK_URL_SECONDS * 1000).toISOString() }
 }
 
 /** The stored object's type and size, or null when nothing is stored under the key. */
 export async function headObject(key: string): Promise<{ contentType: string, size: number } | null> {
-  const { server, bucket } = useStorage()
+  const { server, bucket } = useObjectStore()
   try {
     const head = await guarded(() => server.send(new HeadObjectCommand({ Bucket: bucket, Key: key })))
     return { contentType: (head.ContentType ?? '').split(';')[0]!.trim().toLowerCase(), size: head.ContentLength ?? -1 }
@@ -129,13 +129,13 @@ export async function headObject(key: string): Promise<{ contentType: string, si
 
 /** The first bytes of an object (a ranged GET), to check what the file really is. */
 export async function readObjectStart(key: string, bytes = 64): Promise<Uint8Array> {
-  const { server, bucket } = useStorage()
+  const { server, bucket } = useObjectStore()
   const object = await guarded(() => server.send(new GetObjectCommand({ Bucket: bucket, Key: key, Range: `bytes=0-${bytes - 1}` })))
   return object.Body ? await object.Body.transformToByteArray() : new Uint8Array()
 }
 
 export async function deleteObject(key: string) {
-  const { server, bucket } = useStorage()
+  const { server, bucket } = useObjectStore()
   await guarded(() => server.send(new DeleteObjectCommand({ Bucket: bucket, Key: key })))
 }
 
@@ -150,12 +150,12 @@ export async function deleteObjectQuietly(key: string) {
 }
 
 export async function copyObject(fromKey: string, toKey: string) {
-  const { server, bucket } = useStorage()
+  const { server, bucket } = useObjectStore()
   await guarded(() => server.send(new CopyObjectCommand({ Bucket: bucket, Key: toKey, CopySource: `${bucket}/${encodeURIComponent(fromKey).replaceAll('%2F', '/')}` })))
 }
 
 export async function putObject(key: string, body: Uint8Array, contentType: string) {
-  const { server, bucket } = useStorage()
+  const { server, bucket } = useObjectStore()
   await guarded(() => server.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength })))
 }
 
