@@ -54,20 +54,28 @@ export const exerciseCautionSchema = z.object({
     .default([]),
 })
 
-export const exerciseInputSchema = z.object({
+const exerciseFields = {
   name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(EXERCISE_LIMITS.name, `Name is at most ${EXERCISE_LIMITS.name} characters`),
   category: z.enum(exerciseCategories, { error: 'Pick a category: strength, hill, drill, stride, mobility or plyometric' }),
-  summary: z.string({ error: 'Summary is text' }).trim().max(EXERCISE_LIMITS.summary, `Summary is at most ${EXERCISE_LIMITS.summary} characters`).default(''),
-  cues: z.array(cueSchema, { error: 'Cues are a list' }).max(EXERCISE_LIMITS.cues, `At most ${EXERCISE_LIMITS.cues} cues`).default([]),
+  summary: z.string({ error: 'Summary is text' }).trim().max(EXERCISE_LIMITS.summary, `Summary is at most ${EXERCISE_LIMITS.summary} characters`),
+  cues: z.array(cueSchema, { error: 'Cues are a list' }).max(EXERCISE_LIMITS.cues, `At most ${EXERCISE_LIMITS.cues} cues`),
   equipment: z.array(equipmentItemSchema, { error: 'Equipment is a list' })
     .max(EXERCISE_LIMITS.equipment, `At most ${EXERCISE_LIMITS.equipment} pieces of equipment`)
-    .refine(items => new Set(items.map(item => item.toLowerCase())).size === items.length, 'List each piece of equipment once')
-    .default([]),
-  cautions: z.array(exerciseCautionSchema, { error: 'Cautions are a list' }).max(EXERCISE_LIMITS.cautions, `At most ${EXERCISE_LIMITS.cautions} cautions`).default([]),
+    .refine(items => new Set(items.map(item => item.toLowerCase())).size === items.length, 'List each piece of equipment once'),
+  cautions: z.array(exerciseCautionSchema, { error: 'Cautions are a list' }).max(EXERCISE_LIMITS.cautions, `At most ${EXERCISE_LIMITS.cautions} cautions`),
+}
+
+export const exerciseInputSchema = z.object({
+  ...exerciseFields,
+  summary: exerciseFields.summary.default(''),
+  cues: exerciseFields.cues.default([]),
+  equipment: exerciseFields.equipment.default([]),
+  cautions: exerciseFields.cautions.default([]),
 })
 export type ExerciseInput = z.output<typeof exerciseInputSchema>
 
-export const exercisePatchSchema = exerciseInputSchema.partial()
+/** A change to some fields: absent fields stay as they are (no defaults fill them in). */
+export const exercisePatchSchema = z.object(exerciseFields).partial()
 
 export const exerciseSorts = ['name', 'category', 'updated', 'clip'] as const
 
