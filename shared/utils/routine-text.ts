@@ -66,3 +66,15 @@ export function stepName(step: RoutineStep, exerciseName?: (id: number) => strin
   if (step.type === 'sets') return `${name ?? 'Exercise'} sets`
   return name ? `${blockKindLabels[step.kind]}: ${name}` : blockKindLabels[step.kind]
 }
+
+/** What the card shows under the step's name: the numbers, without repeating the kind or exercise. */
+export function describeStepDetails(step: RoutineStep): string {
+  if (step.type === 'repeat') {
+    const count = step.steps.length
+    return `${step.times} round${step.times === 1 ? '' : 's'} of ${count} step${count === 1 ? '' : 's'}${step.skipLastRecovery ? ', no recovery after the last' : ''}`
+  }
+  if (step.type === 'sets') {
+    return [`${step.sets} × ${describeMeasure(step.perSet)}`, `${formatSeconds(step.restSeconds)} rest`, describeTarget(step.target)].filter(Boolean).join(' · ')
+  }
+  return [describeMeasure(step.measure), describeTarget(step.target), step.grade ? formatGrade(step.grade) : ''].filter(Boolean).join(' · ')
+}
