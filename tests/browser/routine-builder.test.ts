@@ -128,7 +128,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(viewports[size].width)
 
     // The preview fills in this athlete's paces and puts the caution about their sore knee first.
-    await page.getByLabel('Athlete').selectOption({ label: 'Ffion Aske' })
+    await page.getByLabel('Athlete', { exact: true }).selectOption({ label: 'Ffion Aske' })
     const preview = page.getByTestId('routine-preview')
     await preview.getByTestId('matched-cautions').getByText('Walk back down to spare the knees').waitFor()
     await preview.getByText(/\/km on \+6 % grade \(same effort as \d+:\d\d \/km on the flat\)/).first().waitFor()
