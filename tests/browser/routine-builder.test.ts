@@ -135,8 +135,27 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await page.screenshot({ path: screenshotPath(`routine-builder-saved-${size}`), fullPage: true })
 
     const routineId = page.url().split('/').pop()
+
+    // Someone saves from another tab; this tab's next save is refused with a way out.
+    const current = await coach.get<{ title: string, category: string, description: string, steps: unknown[] }>(`/api/routines/${routineId}`)
+    expect((await coach.put(`/api/routines/${routineId}`, { ...current.data, title: 'Ridge Lane hills, from the other tab', version: 1 })).status).toBe(200)
+    await page.getByLabel('Title').fill('Ridge Lane hills, from this tab')
+    await page.getByRole('button', { name: 'Save', exact: true }).click()
+    await page.getByTestId('save-conflict').getByText('Someone else saved this routine after you opened it').waitFor()
+    await page.getByRole('button', { name: 'Load the saved version' }).click()
+    await page.getByRole('heading', { name: 'Ridge Lane hills, from the other tab' }).waitFor()
+    await expect.poll(() => page.getByTestId('save-status').textContent()).toMatch(/Saved · version 2/)
+
+    await page.goto(`${stack.url}/routines`)
+    await page.getByRole('link', { name: 'Ridge Lane hills, from the other tab', exact: true }).waitFor()
+    await page.getByLabel('Category').selectOption({ label: 'Gym and strength' })
+    await page.getByText('No routine matches.').waitFor()
+    await page.getByLabel('Category').selectOption({ label: 'Hills' })
+    await page.getByLabel('Search').fill('other tab')
+    await expect.poll(() => page.locator('tbody tr').count()).toBe(1)
+    await page.screenshot({ path: screenshotPath(`routine-list-${size}`), fullPage: true })
     await page.goto(`${stack.url}/routines/${routineId}/print`)
-    await page.getByRole('heading', { name: 'Ridge Lane hill reps' }).waitFor()
+    await page.getByRole('heading', { name: 'Ridge Lane hills, from the other tab' }).waitFor()
     await expect.poll(() => page.getByTestId('routine-qr').evaluate(image => (image as HTMLImageElement).naturalWidth)).toBeGreaterThan(0)
     expect(await page.getByTestId('routine-qr').getAttribute('alt')).toBe(`QR code for ${stack.url}/session/routine/${routineId}`)
     await page.emulateMedia({ media: 'print' })
