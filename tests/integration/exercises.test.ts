@@ -92,7 +92,7 @@ async function createExercise(client: ApiClient, overrides: Record<string, unkno
 async function uploadClip(client: ApiClient, exerciseId: number, body: Uint8Array = clip, contentType = 'video/webm') {
   const signed = await client.post<UploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
   expect(signed.status, signed.text).toBe(200)
-  const put = await fetch(signed.data.url, { method: 'PUT', body, headers: { 'content-type': contentType } })
+  const put = await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': contentType } })
   expect(put.status, await put.clone().text()).toBe(200)
   const confirmed = await client.post<Exercise & FieldError>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
   return { key: signed.data.key, confirmed }
@@ -262,7 +262,7 @@ describe('demo clips in object storage', () => {
     expect(early.status).toBe(400)
     expect(early.data.data?.fields?.key).toMatch(/Nothing has been uploaded/)
 
-    const put = await fetch(signed.data.url, { method: 'PUT', body: clip, headers: { 'content-type': 'video/webm' } })
+    const put = await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(clip), headers: { 'content-type': 'video/webm' } })
     expect(put.status).toBe(200)
     const confirmed = await coach.post<Exercise>(`/api/exercises/${exercise.id}/clip/confirm`, { key: signed.data.key })
     expect(confirmed.status, confirmed.text).toBe(200)
@@ -311,7 +311,7 @@ describe('demo clips in object storage', () => {
     const exercise = await createExercise(coach)
     for (const [body, contentType, message] of [[clip, 'video/mp4', /video\/mp4, not video\/webm/], [Buffer.concat([clip, clip]), 'video/webm', /bytes, not the announced/]] as const) {
       const signed = await coach.post<UploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
-      const put = await fetch(signed.data.url, { method: 'PUT', body, headers: { 'content-type': contentType } })
+      const put = await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': contentType } })
       await put.arrayBuffer()
       const confirmed = await coach.post<FieldError>(`/api/exercises/${exercise.id}/clip/confirm`, { key: signed.data.key })
       expect(confirmed.status).toBe(400)
