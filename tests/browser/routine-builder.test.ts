@@ -1,6 +1,7 @@
 import { createClient } from '@libsql/client'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
+import { makeDemoClip } from '../../seeds/clip'
 import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
 import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
@@ -41,6 +42,11 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
       cautions: [{ text: 'Walk back down to spare the knees', bodyAreas: ['knee'] }],
     })
     expect(exercise.status).toBe(201)
+    // A demo clip for it, uploaded the way the library page does: presigned PUT, then confirm.
+    const clip = await makeDemoClip({ seconds: 1, framesPerSecond: 8 })
+    const signed = await coach.post<{ url: string, key: string }>(`/api/exercises/${exercise.data.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
+    expect((await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(clip), headers: { 'content-type': 'video/webm' } })).status).toBe(200)
+    expect((await coach.post(`/api/exercises/${exercise.data.id}/clip/confirm`, { key: signed.data.key })).status).toBe(200)
     const { userId: athleteId } = await addAthlete(stack, coach, { name: 'Ffion Aske' })
     const sql = createClient({ url: stack.databaseUrl })
     await sql.execute({ sql: 'update athlete_profiles set benchmark_distance_m = 5000, benchmark_time_s = 1200 where user_id = ?', args: [athleteId] })
@@ -82,6 +88,8 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await effort.getByLabel('Exercise (optional)').fill('hill spr')
     await page.getByRole('option', { name: /Short hill sprints/ }).click()
     await effort.getByText('Walk back down to spare the knees').waitFor()
+    await effort.getByTestId('exercise-clip').scrollIntoViewIfNeeded()
+    await expect.poll(() => effort.getByTestId('exercise-clip').evaluate(video => (video as HTMLVideoElement).duration)).toBeGreaterThan(0)
     await effort.getByLabel('Note for the athlete').fill('Strong arms, even effort to the top')
     const recovery = repeat.locator('article[aria-label="Recovery"]')
     await recovery.locator('button[aria-expanded]').first().click()
