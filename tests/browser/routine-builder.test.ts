@@ -117,6 +117,16 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await expect.poll(() => totalTime(page)).toBe('40:00')
     await page.screenshot({ path: screenshotPath(`routine-builder-${size}`), fullPage: true })
 
+    // Leaving with unsaved work asks first; saying no keeps the draft.
+    const questions: string[] = []
+    page.once('dialog', (dialog) => {
+      questions.push(dialog.message())
+      void dialog.dismiss()
+    })
+    await page.getByRole('link', { name: '← All routines' }).click()
+    await expect.poll(() => questions).toEqual([expect.stringMatching(/unsaved changes/)])
+    expect(page.url()).toMatch(/\/routines\/new$/)
+
     await page.getByRole('button', { name: 'Save', exact: true }).click()
     await page.waitForURL(/\/routines\/\d+$/)
     await expect.poll(() => page.getByTestId('save-status').textContent()).toMatch(/Saved · version 1/)
