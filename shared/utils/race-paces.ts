@@ -22,6 +22,10 @@ export interface PaceText {
   mi: string
 }
 
+export type TrainingZone =
+  | { key: string, label: string, fast: PaceText, slow: PaceText }
+  | { key: string, label: string, pace: PaceText }
+
 function paceText(secPerKm: number): PaceText {
   return { secPerKm: Math.round(secPerKm * 10) / 10, km: formatPace(secPerKm, 'km'), mi: formatPace(secPerKm, 'mi') }
 }
@@ -41,7 +45,7 @@ export function racePaceTable(benchmark: RaceResult) {
       riegel: raceTime(race.distanceM, riegel(benchmark.distanceM, benchmark.timeS, race.distanceM)),
       danielsGilbert: raceTime(race.distanceM, raceTimeForVo2max(vo2max, race.distanceM)),
     })),
-    training: [
+    training: <TrainingZone[]>[
       { key: 'easy', label: 'Easy', fast: paceText(paces.easy.fast), slow: paceText(paces.easy.slow) },
       { key: 'marathon', label: 'Marathon pace', pace: paceText(paces.marathon) },
       { key: 'threshold', label: 'Threshold', pace: paceText(paces.threshold) },
