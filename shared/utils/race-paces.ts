@@ -22,9 +22,9 @@ export interface PaceText {
   mi: string
 }
 
-export type TrainingZone =
-  | { key: string, label: string, fast: PaceText, slow: PaceText }
-  | { key: string, label: string, pace: PaceText }
+export type TrainingZone
+  = | { key: string, label: string, fast: PaceText, slow: PaceText }
+    | { key: string, label: string, pace: PaceText }
 
 function paceText(secPerKm: number): PaceText {
   return { secPerKm: Math.round(secPerKm * 10) / 10, km: formatPace(secPerKm, 'km'), mi: formatPace(secPerKm, 'mi') }
