@@ -75,48 +75,50 @@ async function listAthletesByIds(db: Database, teamId: number, ids: number[]) {
     .where(and(eq(memberships.teamId, teamId), eq(memberships.role, 'athlete'), inArray(users.id, ids)))
 }
 
+function athleteFilter(column: string, athleteIds?: number[]) {
+  if (!athleteIds) return sql``
+  if (!athleteIds.length) return sql` and 0`
+  return sql` and ${sql.raw(column)} in (${sql.join(athleteIds.map(id => sql`${id}`), sql`, `)})`
+}
+
+// Grouped rows come back as one packed text per athlete ("day value value,…"): the GROUP BY work stays in
+// SQLite and the driver builds 100 row objects instead of thousands, which is most of the route's time.
+function unpack(packed: string | null) {
+  return (packed ?? '').split(',').filter(Boolean).map(item => item.split(' '))
+}
+
 /** Daily load totals and session counts per athlete, for the days from `from` to `to`. */
 export async function dailyLoadsByAthlete(db: Database, teamId: number, from: string, to: string, athleteIds?: number[]) {
-  const rows = await db.select({
-    athleteId: sessionLogs.athleteId,
-    day: sessionLogs.day,
-    load: dayLoadExpression,
-    sessions: sql<number>`count(*)`,
-  }).from(sessionLogs)
-    .where(and(
-      eq(sessionLogs.teamId, teamId),
-      between(sessionLogs.day, from, to),
-      athleteIds ? inArray(sessionLogs.athleteId, athleteIds) : undefined,
-    ))
-    .groupBy(sessionLogs.athleteId, sessionLogs.day)
+  const rows = await db.all<{ athleteId: number, packed: string | null }>(sql`
+    select athlete_id as athleteId, group_concat(day || ' ' || total || ' ' || sessions, ',') as packed
+    from (
+      select athlete_id, day, coalesce(sum(max(coalesce(load, 0), 0)), 0) as total, count(*) as sessions
+      from session_logs
+      where team_id = ${teamId} and day between ${from} and ${to}${athleteFilter('athlete_id', athleteIds)}
+      group by athlete_id, day
+    )
+    group by athlete_id`)
   const byAthlete = new Map<number, (DailyLoad & { sessions: number })[]>()
   for (const row of rows) {
-    const list = byAthlete.get(row.athleteId) ?? []
-    list.push({ day: row.day, load: Number(row.load), sessions: Number(row.sessions) })
-    byAthlete.set(row.athleteId, list)
+    byAthlete.set(Number(row.athleteId), unpack(row.packed).map(([day, load, sessions]) => ({ day: day!, load: Number(load), sessions: Number(sessions) })))
   }
   return byAthlete
 }
 
 /** Assigned and done counts per athlete and date, for the dates from `from` to `to`. */
 export async function assignedCountsByAthlete(db: Database, teamId: number, from: string, to: string, athleteIds?: number[]) {
-  const rows = await db.select({
-    athleteId: assignments.athleteId,
-    date: assignments.date,
-    assigned: sql<number>`count(*)`,
-    done: sql<number>`sum(${doneExpression})`,
-  }).from(assignments)
-    .where(and(
-      eq(assignments.teamId, teamId),
-      between(assignments.date, from, to),
-      athleteIds ? inArray(assignments.athleteId, athleteIds) : undefined,
-    ))
-    .groupBy(assignments.athleteId, assignments.date)
+  const rows = await db.all<{ athleteId: number, packed: string | null }>(sql`
+    select athlete_id as athleteId, group_concat(date || ' ' || assigned || ' ' || done, ',') as packed
+    from (
+      select athlete_id, date, count(*) as assigned, sum(${doneExpression}) as done
+      from assignments
+      where team_id = ${teamId} and date between ${from} and ${to}${athleteFilter('athlete_id', athleteIds)}
+      group by athlete_id, date
+    )
+    group by athlete_id`)
   const byAthlete = new Map<number, AssignedCount[]>()
   for (const row of rows) {
-    const list = byAthlete.get(row.athleteId) ?? []
-    list.push({ date: row.date, assigned: Number(row.assigned), done: Number(row.done) })
-    byAthlete.set(row.athleteId, list)
+    byAthlete.set(Number(row.athleteId), unpack(row.packed).map(([date, assigned, done]) => ({ date: date!, assigned: Number(assigned), done: Number(done) })))
   }
   return byAthlete
 }

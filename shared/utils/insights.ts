@@ -64,14 +64,20 @@ export function mondayOf(day: string): string {
   return dayFromNumber(value - weekday)
 }
 
+// Building a DateTimeFormat costs far more than using one; keep one per time zone.
+const dayFormats = new Map<string, Intl.DateTimeFormat | null>()
+
 /** Today's calendar date in an IANA time zone; unknown zones fall back to UTC. */
 export function todayIn(timeZone: string, now = new Date()): string {
-  try {
-    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now)
+  if (!dayFormats.has(timeZone)) {
+    try {
+      dayFormats.set(timeZone, new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }))
+    }
+    catch {
+      dayFormats.set(timeZone, null)
+    }
   }
-  catch {
-    return now.toISOString().slice(0, 10)
-  }
+  return dayFormats.get(timeZone)?.format(now) ?? now.toISOString().slice(0, 10)
 }
 
 /** One load per day from `from` to `to` inclusive, 0 on days without a session; rows may be sparse and unordered. */
