@@ -14,9 +14,6 @@ const doneExpression = sql<number>`case when "assignments"."status" in ('done', 
   select 1 from "session_logs" as "done_logs" where "done_logs"."assignment_id" = "assignments"."id" and "done_logs"."finished_at" is not null
 ) then 1 else 0 end`
 
-// Loads are summed per day in SQL; a missing or negative load counts as 0.
-const dayLoadExpression = sql<number>`coalesce(sum(max(coalesce(${sessionLogs.load}, 0), 0)), 0)`
-
 /** Epley is meant for lower rep counts; sets above 12 reps count for volume but not for the 1RM estimate. */
 const MAX_REPS_FOR_ESTIMATE = 12
 
