@@ -290,6 +290,8 @@ export const sessionLogs = sqliteTable('session_logs', {
   index('session_logs_assignment_idx').on(t.assignmentId),
   index('session_logs_athlete_day_idx').on(t.athleteId, t.day),
   index('session_logs_team_day_idx').on(t.teamId, t.day),
+  // Covers the insights query (team, date range → athlete, load) so it never reads the table rows.
+  index('session_logs_team_day_load_idx').on(t.teamId, t.day, t.athleteId, t.load),
 ])
 
 export const entryLogs = sqliteTable('entry_logs', {

@@ -1,0 +1,1 @@
+CREATE INDEX `session_logs_team_day_load_idx` ON `session_logs` (`team_id`,`day`,`athlete_id`,`load`);
