@@ -37,6 +37,14 @@ export function useZodForm<S extends z.ZodObject>(schema: S, initial: z.input<S>
     serverErrors.value = Object.fromEntries(Object.entries(serverErrors.value).filter(([key]) => key !== field))
   }
 
+  /** Back to a clean form (after a successful submit, say), without showing errors for the empty fields. */
+  function reset(next: Partial<z.input<S>> = {}) {
+    Object.assign(values, { ...initial, ...next })
+    for (const field of Object.keys(touched)) touched[field] = false
+    submitted.value = false
+    serverErrors.value = {}
+  }
+
   async function submit(action: (data: z.output<S>) => Promise<void>) {
     submitted.value = true
     formError.value = ''
@@ -59,5 +67,5 @@ export function useZodForm<S extends z.ZodObject>(schema: S, initial: z.input<S>
     }
   }
 
-  return { values, errors, formError, pending, touch, submit }
+  return { values, errors, formError, pending, touch, submit, reset }
 }

@@ -1,5 +1,4 @@
-import { mkdirSync, mkdtempSync } from 'node:fs'
-import { tmpdir } from 'node:os'
+import { mkdirSync } from 'node:fs'
 import { join, resolve } from 'node:path'
 import { chromium, type Browser, type BrowserContext } from 'playwright-core'
 
@@ -10,9 +9,8 @@ export const viewports = {
   desktop: { width: 1280, height: 800 },
 } as const
 
-/** Debian's Chromium through playwright-core; no browser is downloaded. */
+/** Debian's Chromium through playwright-core (each launch gets a fresh, empty profile); no browser is downloaded. */
 export async function launchBrowser(): Promise<Browser> {
-  mkdtempSync(join(tmpdir(), 'switchback-chromium-'))
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--autoplay-policy=no-user-gesture-required'],
