@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
-import { assignments, entryLogs, memberships, sessionLogs, users } from '../db/schema'
+import type { entryLogs } from '../db/schema'
+import { assignments, memberships, sessionLogs, users } from '../db/schema'
 import type { Caller } from './auth'
 import { EDIT_WINDOW_DAYS } from '../../shared/schemas/session'
 

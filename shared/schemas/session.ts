@@ -29,7 +29,7 @@ export const entrySchema = entryValuesSchema.extend({
   idempotencyKey: key,
   stepId: z.string({ error: 'Which step?' }).min(1, 'Which step?').max(64, 'Step ids are at most 64 characters'),
   set: z.number().int().min(1).max(50).optional(),
-  round: z.number().int().min(1).max(100).optional(),
+  round: z.number().int().min(1).max(1_000_000).optional(),
 })
 
 export const entryPatchSchema = entryValuesSchema.refine(value => Object.keys(value).length > 0, 'Change at least one value')

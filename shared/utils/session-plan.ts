@@ -2,7 +2,7 @@ import type { AssignmentSnapshot, SnapshotExercise } from '../types/domain'
 import { generalCautions, matchCautions, type InjuryNoteLike, type MatchedCaution } from './cautions'
 import type { TrainingPaces } from './pace'
 import { loadForPercent } from './strength'
-import { buildTimeline, type BlockKind, type RoutineStep, type Target } from './timeline'
+import { buildTimeline, type BlockKind, type Target, type TimelineSegment } from './timeline'
 
 // What the player runs: the assignment's snapshot turned into one athlete's segments, with their
 // paces and loads filled in and the cautions that concern them.
@@ -62,34 +62,21 @@ export interface PlanAthlete {
   injuryNotes: InjuryNoteLike[]
 }
 
-const kindLabels: Record<BlockKind, string> = { warmup: 'Warm-up', work: 'Work', recovery: 'Recovery', rest: 'Rest', cooldown: 'Cool-down' }
-
-interface StepInfo {
-  step: RoutineStep
-  rounds: number | null
-}
-
-function indexSteps(steps: RoutineStep[], rounds: number | null = null, into = new Map<string, StepInfo>()) {
-  for (const step of steps) {
-    into.set(step.id, { step, rounds })
-    if (step.type === 'repeat') indexSteps(step.steps, step.times, into)
-  }
-  return into
+/** One number for the round across nested repeats (outer round 2 of an inner 3-round repeat is 4, 5, 6). */
+function flatRound(segment: TimelineSegment): number | null {
+  if (!segment.rounds?.length) return segment.round ?? null
+  return segment.rounds.reduce((total, round) => total * round.of + (round.round - 1), 0) + 1
 }
 
 export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete): SessionPlan {
   const timeline = buildTimeline(snapshot.steps, { paces: athlete.paces ?? undefined })
-  const steps = indexSteps(snapshot.steps)
   const exercises = new Map(snapshot.exercises.map(exercise => [exercise.id, exercise]))
   const missingMax = new Set<string>()
 
   const segments = timeline.segments.map((segment, index): PlanSegment => {
-    const info = steps.get(segment.stepId)
-    const step = info?.step
     const exercise = segment.exerciseId ? exercises.get(segment.exerciseId) : undefined
-    const isSetRest = step?.type === 'sets' && segment.kind === 'rest'
-    const measure = step?.type === 'sets' ? (isSetRest ? { by: 'time' as const, seconds: step.restSeconds } : step.perSet) : step?.type === 'block' ? step.measure : { by: 'time' as const, seconds: segment.durationS }
-    const target: Target | undefined = isSetRest ? undefined : (segment.target ?? (step && step.type !== 'repeat' ? step.target : undefined))
+    const isRest = segment.kind === 'rest' || segment.kind === 'recovery'
+    const target: Target | undefined = isRest && segment.set ? undefined : segment.target
     let targetKg: number | null = null
     let percent: number | null = null
     if (target?.type === 'load') targetKg = target.kg
@@ -99,15 +86,15 @@ export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete):
       if (max) targetKg = loadForPercent(max, target.percent)
       else missingMax.add(exercise?.name ?? 'an exercise')
     }
-    const loggable = !isSetRest && (segment.kind === 'work')
-    const grade = step?.type === 'block' ? (step.grade ?? null) : null
+    const round = flatRound(segment)
+    const measure = segment.measure
     return {
       index,
-      key: `${segment.stepId}:${segment.round ?? 0}:${segment.set ?? 0}`,
+      key: `${segment.stepId}:${round ?? 0}:${segment.set ?? 0}`,
       stepId: segment.stepId,
       kind: segment.kind,
-      label: isSetRest ? 'Rest' : exercise?.name ?? kindLabels[segment.kind],
-      exerciseId: isSetRest ? null : (segment.exerciseId ?? null),
+      label: segment.kind === 'rest' && segment.set ? 'Rest' : exercise?.name ?? segment.label,
+      exerciseId: segment.exerciseId ?? null,
       startS: segment.startS,
       durationS: segment.durationS,
       estimated: segment.estimated,
@@ -117,18 +104,18 @@ export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete):
       meters: measure.by === 'distance' ? measure.meters : null,
       seconds: measure.by === 'time' ? measure.seconds : null,
       set: segment.set ?? null,
-      sets: step?.type === 'sets' ? step.sets : null,
-      round: segment.round ?? null,
-      rounds: info?.rounds ?? null,
-      grade,
+      sets: segment.setOf ?? null,
+      round,
+      rounds: segment.rounds?.length ? segment.rounds.reduce((total, item) => total * item.of, 1) : (segment.roundOf ?? null),
+      grade: segment.grade ?? null,
       targetPaceSPerKm: segment.targetPace ?? null,
       targetZone: target?.type === 'pace' ? target.zone : null,
       targetKg,
       targetRpe: target?.type === 'effort' ? target.rpe : null,
       percent1rm: percent,
-      note: step && step.type !== 'repeat' ? (step.note ?? null) : null,
-      loggable,
-      hasCautions: Boolean(!isSetRest && exercise?.cautions.length),
+      note: segment.note ?? null,
+      loggable: segment.kind === 'work',
+      hasCautions: Boolean(exercise?.cautions.length),
     }
   })
 

@@ -34,7 +34,7 @@ it('keeps messages while the mail server is down and delivers each exactly once 
   // Wait until the worker has tried and failed at least once.
   const deadline = Date.now() + 10_000
   let rows = await outboxRows(email)
-  while (Date.now() < deadline && !(rows[0]?.attempts >= 1 && rows[0]?.status === 'pending')) {
+  while (Date.now() < deadline && !((rows[0]?.attempts ?? 0) >= 1 && rows[0]?.status === 'pending')) {
     await new Promise(resolve => setTimeout(resolve, 100))
     rows = await outboxRows(email)
   }

@@ -26,8 +26,10 @@ export default defineEventHandler(async (event) => {
     startedAt,
     day: localDay(startedAt, caller.timezone),
   }).onConflictDoNothing().returning()
-  const [session] = inserted.length ? inserted : await db.select().from(sessionLogs)
-    .where(and(eq(sessionLogs.athleteId, caller.userId), eq(sessionLogs.clientId, body.clientId))).limit(1)
+  const [session] = inserted.length
+    ? inserted
+    : await db.select().from(sessionLogs)
+        .where(and(eq(sessionLogs.athleteId, caller.userId), eq(sessionLogs.clientId, body.clientId))).limit(1)
   if (!session) notFound('No such session')
   if (session.assignmentId !== assignment.id) {
     throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This clientId already belongs to another session', data: { fields: { clientId: 'This clientId already belongs to another session' } } })
