@@ -150,6 +150,18 @@ export class SessionClock {
     return [...earlier, { from, to, scheduledAt: at, reason: 'back', spentMs: spent }]
   }
 
+  /** Ends the session now, wherever it stands (the athlete stops early). */
+  end(): ClockChange[] {
+    const earlier = this.update()
+    if (this.status !== 'running' && this.status !== 'paused') return earlier
+    const at = this.activeNow()
+    const spent = at - this.segmentStart
+    const from = this.index
+    this.doneMs += Math.max(0, spent)
+    this.status = 'finished'
+    return [...earlier, { from, to: this.segments.length, scheduledAt: at, reason: 'skip', spentMs: spent }]
+  }
+
   state(): ClockState {
     if (this.status === 'running') this.update()
     const segment = this.segments[this.index]

@@ -116,6 +116,14 @@ describe('SessionClock', () => {
     expect(again.state()).toMatchObject({ index: 2, waiting: true })
   })
 
+  it('ends early on request', () => {
+    const clock = new SessionClock(circuit, now)
+    clock.start()
+    vi.advanceTimersByTime(40_000)
+    expect(clock.end()).toMatchObject([{ from: 0, to: 1, reason: 'time' }, { from: 1, to: 4, reason: 'skip', spentMs: 10_000 }])
+    expect(clock.state()).toMatchObject({ status: 'finished', totalElapsedMs: 40_000 })
+  })
+
   it('refuses negative or missing durations', () => {
     expect(() => new SessionClock([{ durationS: -1 }], now)).toThrow(/0 seconds or more/)
     expect(() => new SessionClock([{ durationS: Number.NaN }], now)).toThrow(/0 seconds or more/)
