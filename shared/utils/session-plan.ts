@@ -9,7 +9,7 @@ import { buildTimeline, type BlockKind, type Target, type TimelineSegment } from
 
 export interface PlanSegment {
   index: number
-  /** Unique within the session: step, round and set; entries are logged against it. */
+  /** Unique within the session: step, round and set (and the kind, for rests); entries are logged against it. */
   key: string
   stepId: string
   kind: BlockKind
@@ -90,7 +90,7 @@ export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete):
     const measure = segment.measure
     return {
       index,
-      key: `${segment.stepId}:${round ?? 0}:${segment.set ?? 0}`,
+      key: `${segment.stepId}:${round ?? 0}:${segment.set ?? 0}${segment.kind === 'work' ? '' : `:${segment.kind}`}`,
       stepId: segment.stepId,
       kind: segment.kind,
       label: segment.kind === 'rest' && segment.set ? 'Rest' : exercise?.name ?? segment.label,
