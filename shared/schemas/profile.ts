@@ -30,3 +30,18 @@ export const injuryNotePatchSchema = z.object({
 })
 
 export type ProfilePatch = z.infer<typeof profilePatchSchema>
+
+// Number inputs hand over numbers, typed text a string: both are read as text here.
+const optionalNumberText = (label: string) => z.union([z.string().max(12), z.number()]).transform(value => String(value).trim()).refine(value => value === '' || Number.isFinite(Number(value)), `${label} must be a number`)
+
+/** The profile page's form: text fields as typed, checked here and converted to a `profilePatchSchema` body. */
+export const profileFormSchema = z.object({
+  benchmarkDistanceM: optionalNumberText('Distance').refine(value => value === '' || (Number(value) >= 400 && Number(value) <= 250_000), 'Benchmark races are 400 m to 250 km'),
+  benchmarkTime: z.string().trim().max(12).refine(value => value === '' || /^\d{1,3}(:\d{2}){0,2}(\.\d+)?$/.test(value), 'Write the time as h:mm:ss or mm:ss, e.g. 40:00'),
+  benchmarkDate: z.union([z.literal(''), isoDateSchema]),
+  birthYear: optionalNumberText('Year').refine(value => value === '' || (Number.isInteger(Number(value)) && Number(value) >= thisYear - 100 && Number(value) <= thisYear - 8), 'Enter a year within the last 100 years'),
+  hrMax: optionalNumberText('HRmax').refine(value => value === '' || (Number(value) >= 120 && Number(value) <= 230), 'HRmax is between 120 and 230 bpm'),
+  hrRest: optionalNumberText('Resting HR').refine(value => value === '' || (Number(value) >= 25 && Number(value) <= 120), 'Resting HR is between 25 and 120 bpm'),
+  units: z.enum(['km', 'mi']),
+  goal: z.string().trim().max(200, 'Goals are at most 200 characters'),
+}).refine(value => (value.benchmarkDistanceM === '') === (value.benchmarkTime === ''), { message: 'Give both the distance and the time of the race', path: ['benchmarkTime'] })
