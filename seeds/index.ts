@@ -1,9 +1,10 @@
 import { migrateDatabase, openDatabase } from '../server/db/client'
 import { seedClub } from './club'
 import type { SeedStep } from './context'
+import { seedPlayer } from './player'
 
 // Each later part of the demo adds its own step here, in the order its data depends on.
-const steps: SeedStep[] = []
+const steps: SeedStep[] = [seedPlayer]
 
 async function main() {
   const url = process.env.DATABASE_URL ?? 'file:.data/switchback.db'
