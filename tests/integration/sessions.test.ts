@@ -237,6 +237,22 @@ describe('logging a session', () => {
   })
 })
 
+describe('the routine card link', () => {
+  it('finds the athlete\'s next planned session of a routine', async () => {
+    const today = new Date().toISOString().slice(0, 10)
+    const routineId = await fixtures.routine(team.teamId, { title: 'Card routine', steps: snapshot.steps })
+    const later = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-10' })
+    const sooner = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-03' })
+    await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: today, status: 'done' })
+    const next = await athlete.athlete.get<{ id: number }>(`/api/me/next-assignment?routineId=${routineId}`)
+    expect(next.status).toBe(200)
+    expect(next.data.id).toBe(sooner.id)
+    expect(later.id).not.toBe(sooner.id)
+    expect((await teammate.athlete.get(`/api/me/next-assignment?routineId=${routineId}`)).status).toBe(404)
+    expect((await athlete.athlete.get('/api/me/next-assignment?routineId=x')).status).toBe(400)
+  })
+})
+
 describe('the logbook', () => {
   it('lists sessions with their sets by date range, for the athlete and their coaches', async () => {
     const { id } = await assign()
