@@ -1,10 +1,12 @@
 import { migrateDatabase, openDatabase } from '../server/db/client'
 import { seedClub } from './club'
 import type { SeedStep } from './context'
+import { seedExercises } from './exercises'
 import { seedPlayer } from './player'
+import { seedRoutines } from './routines'
 
 // Each later part of the demo adds its own step here, in the order its data depends on.
-const steps: SeedStep[] = [seedPlayer]
+const steps: SeedStep[] = [seedExercises, seedRoutines, seedPlayer]
 
 async function main() {
   const url = process.env.DATABASE_URL ?? 'file:.data/switchback.db'

@@ -6,6 +6,7 @@ import type { PlanSegment, SessionPlan } from '#shared/utils/session-plan'
 import { useSessionOutboxStore } from './sessionOutbox'
 
 export interface PlayerPlan {
+  clipExerciseIds: number[]
   assignment: { id: number, date: string, note: string, status: string, routineId: number }
   athlete: { name: string, units: 'km' | 'mi', hasBenchmark: boolean, activeInjuries: { id: number, bodyArea: string, note: string }[] }
   plan: SessionPlan

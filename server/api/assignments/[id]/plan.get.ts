@@ -1,7 +1,7 @@
-import { and, desc, eq } from 'drizzle-orm'
+import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm'
 import { idParamsSchema } from '../../../../shared/schemas/common'
 import { planSession } from '../../../../shared/utils/session-plan'
-import { sessionLogs } from '../../../db/schema'
+import { exercises, sessionLogs } from '../../../db/schema'
 
 /** The assigned athlete's own session plan: segments with their paces and loads, and the cautions. */
 export default defineEventHandler(async (event) => {
@@ -19,7 +19,14 @@ export default defineEventHandler(async (event) => {
   const sessions = await db.select().from(sessionLogs)
     .where(and(eq(sessionLogs.assignmentId, assignment.id), eq(sessionLogs.athleteId, caller.userId)))
     .orderBy(desc(sessionLogs.startedAt))
+  const exerciseIds = assignment.snapshot.exercises.map(exercise => exercise.id)
+  const withClips = exerciseIds.length
+    ? await db.select({ id: exercises.id }).from(exercises)
+        .where(and(eq(exercises.teamId, caller.teamId), inArray(exercises.id, exerciseIds), isNotNull(exercises.clipId)))
+    : []
   return {
+    /** Exercises whose demo clip can be played now (the library's clip may have changed since the snapshot). */
+    clipExerciseIds: withClips.map(row => row.id),
     assignment: { id: assignment.id, date: assignment.date, note: assignment.note, status: assignment.status, routineId: assignment.routineId },
     athlete: {
       name: context.athlete.name,

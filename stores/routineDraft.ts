@@ -1,0 +1,480 @@
+import { defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+import { routineMetaSchema, type RoutineCategory } from '#shared/schemas/routine'
+import type { ExerciseCaution } from '#shared/types/domain'
+import { buildTimeline, MAX_NESTING, routineStepsSchema, type BlockKind, type BlockStep, type RepeatStep, type RoutineStep, type SetsStep } from '#shared/utils/timeline'
+
+export const ROOT = 'root'
+export const HISTORY_LIMIT = 100
+
+export interface DraftExercise {
+  id: number
+  name: string
+  category: string
+  cautions: ExerciseCaution[]
+  summary?: string
+  cues?: string[]
+  hasClip?: boolean
+  archivedAt?: string | Date | null
+}
+
+export interface RoutineDraftContent {
+  title: string
+  category: RoutineCategory
+  description: string
+  steps: RoutineStep[]
+}
+
+export interface LoadedRoutine extends RoutineDraftContent {
+  id: number | null
+  version: number | null
+  exercises?: DraftExercise[]
+}
+
+export interface StepPlace {
+  /** `ROOT` for the routine's own list, otherwise the id of the repeat holding the list. */
+  listId: string
+  index: number
+}
+
+interface Location {
+  list: RoutineStep[]
+  index: number
+  step: RoutineStep
+  parent: RepeatStep | null
+  /** How many repeats hold this step's list (0 at the top level). */
+  depth: number
+}
+
+type FieldMessages = Record<string, string>
+
+const timingFields = new Set(['measure', 'perSet', 'seconds', 'meters', 'reps', 'by', 'times', 'sets', 'restSeconds', 'type', 'kind', 'skipLastRecovery'])
+
+let idCounter = 0
+export function newStepId(): string {
+  idCounter += 1
+  return `s${Date.now().toString(36)}${idCounter.toString(36)}${Math.random().toString(36).slice(2, 6)}`
+}
+
+const clone = <T>(value: T): T => JSON.parse(JSON.stringify(value)) as T
+
+/** A deep copy of a step with fresh ids throughout, for duplicating. */
+function withFreshIds(step: RoutineStep): RoutineStep {
+  const copy = clone(step)
+  const renew = (item: RoutineStep) => {
+    item.id = newStepId()
+    if (item.type === 'repeat') item.steps.forEach(renew)
+  }
+  renew(copy)
+  return copy
+}
+
+const defaultBlocks: Record<BlockKind, Omit<BlockStep, 'id' | 'type' | 'kind'>> = {
+  warmup: { measure: { by: 'time', seconds: 600 }, target: { type: 'pace', zone: 'easy' } },
+  work: { measure: { by: 'time', seconds: 60 }, target: { type: 'effort', rpe: 8 } },
+  recovery: { measure: { by: 'time', seconds: 90 } },
+  rest: { measure: { by: 'time', seconds: 60 } },
+  cooldown: { measure: { by: 'time', seconds: 600 }, target: { type: 'pace', zone: 'easy' } },
+}
+
+export function makeBlock(kind: BlockKind = 'work'): BlockStep {
+  return { id: newStepId(), type: 'block', kind, ...clone(defaultBlocks[kind]) }
+}
+
+/** `exerciseId` 0 means "not picked yet": the schema flags it until the coach picks one. */
+export function makeSets(exerciseId = 0): SetsStep {
+  return { id: newStepId(), type: 'sets', exerciseId, sets: 3, perSet: { by: 'reps', reps: 8 }, restSeconds: 90 }
+}
+
+export function makeRepeat(times = 4, steps?: RoutineStep[]): RepeatStep {
+  return { id: newStepId(), type: 'repeat', times, steps: steps ?? [makeBlock('work'), makeBlock('recovery')] }
+}
+
+/** How deep repeats go inside a step: 0 for a block or sets, 1 for a repeat of plain steps. */
+function repeatHeight(step: RoutineStep): number {
+  if (step.type !== 'repeat') return 0
+  return 1 + Math.max(0, ...step.steps.map(repeatHeight))
+}
+
+function contains(step: RoutineStep, id: string): boolean {
+  return step.type === 'repeat' && step.steps.some(child => child.id === id || contains(child, id))
+}
+
+function locate(steps: RoutineStep[], id: string, parent: RepeatStep | null = null, depth = 0): Location | null {
+  for (let index = 0; index < steps.length; index++) {
+    const step = steps[index]!
+    if (step.id === id) return { list: steps, index, step, parent, depth }
+    if (step.type === 'repeat') {
+      const found = locate(step.steps, id, step, depth + 1)
+      if (found) return found
+    }
+  }
+  return null
+}
+
+/**
+ * Where a validation path (`['steps', 2, 'steps', 0, 'measure', 'seconds']` or `steps.2.steps.0.measure.seconds`)
+ * lands: the innermost step it reaches and the field left over ('_' for the step itself).
+ */
+export function locatePath(steps: RoutineStep[], path: (string | number)[]): { stepId: string, field: string } | null {
+  const parts = path.map(part => (typeof part === 'string' && /^\d+$/.test(part) ? Number(part) : part))
+  if (parts[0] !== 'steps' || typeof parts[1] !== 'number') return null
+  let step = steps[parts[1]]
+  if (!step) return null
+  let rest = parts.slice(2)
+  while (step.type === 'repeat' && rest[0] === 'steps' && typeof rest[1] === 'number' && step.steps[rest[1]]) {
+    step = step.steps[rest[1]]!
+    rest = rest.slice(2)
+  }
+  return { stepId: step.id, field: rest.length ? rest.join('.') : '_' }
+}
+
+export const useRoutineDraftStore = defineStore('routineDraft', () => {
+  const routineId = ref<number | null>(null)
+  const version = ref<number | null>(null)
+  const title = ref('')
+  const category = ref<RoutineCategory>('hills')
+  const description = ref('')
+  const steps = ref<RoutineStep[]>([])
+  const exercises = ref<Record<number, DraftExercise>>({})
+
+  const past = ref<string[]>([])
+  const future = ref<string[]>([])
+  let lastCoalesceKey: string | null = null
+  const savedJson = ref('')
+  const serverErrors = ref<FieldMessages>({})
+
+  function content(): RoutineDraftContent {
+    return { title: title.value, category: category.value, description: description.value, steps: steps.value }
+  }
+  const serialize = () => JSON.stringify(content())
+  function restore(json: string) {
+    const data = JSON.parse(json) as RoutineDraftContent
+    title.value = data.title
+    category.value = data.category
+    description.value = data.description
+    steps.value = data.steps
+  }
+
+  /** Records the state before an edit so it can be undone; edits sharing a key (typing in one field) merge. */
+  function commit(edit: () => void, coalesceKey?: string) {
+    if (!coalesceKey || coalesceKey !== lastCoalesceKey) {
+      past.value.push(serialize())
+      if (past.value.length > HISTORY_LIMIT) past.value.splice(0, past.value.length - HISTORY_LIMIT)
+    }
+    future.value = []
+    lastCoalesceKey = coalesceKey ?? null
+    serverErrors.value = {}
+    edit()
+  }
+
+  function load(routine: LoadedRoutine) {
+    routineId.value = routine.id
+    version.value = routine.version
+    restore(JSON.stringify({ title: routine.title, category: routine.category, description: routine.description, steps: routine.steps }))
+    exercises.value = Object.fromEntries((routine.exercises ?? []).map(exercise => [exercise.id, exercise]))
+    past.value = []
+    future.value = []
+    lastCoalesceKey = null
+    serverErrors.value = {}
+    savedJson.value = serialize()
+  }
+
+  function reset(start: Partial<RoutineDraftContent> = {}) {
+    load({ id: null, version: null, title: '', category: 'hills', description: '', steps: [], ...start })
+    // A fresh draft with steps from a starting point counts as unsaved work.
+    if (start.steps?.length || start.title) savedJson.value = JSON.stringify({ title: '', category: 'hills', description: '', steps: [] })
+  }
+
+  function markSaved(saved: { id: number, version: number }) {
+    routineId.value = saved.id
+    version.value = saved.version
+    savedJson.value = serialize()
+    serverErrors.value = {}
+  }
+
+  const dirty = computed(() => serialize() !== savedJson.value)
+  const canUndo = computed(() => past.value.length > 0)
+  const canRedo = computed(() => future.value.length > 0)
+
+  function undo() {
+    const previous = past.value.pop()
+    if (previous === undefined) return false
+    future.value.push(serialize())
+    restore(previous)
+    lastCoalesceKey = null
+    return true
+  }
+
+  function redo() {
+    const next = future.value.pop()
+    if (next === undefined) return false
+    past.value.push(serialize())
+    restore(next)
+    lastCoalesceKey = null
+    return true
+  }
+
+  function setMeta(field: 'title' | 'description', value: string): void
+  function setMeta(field: 'category', value: RoutineCategory): void
+  function setMeta(field: 'title' | 'description' | 'category', value: string) {
+    if (content()[field] === value) return
+    commit(() => {
+      if (field === 'category') category.value = value as RoutineCategory
+      else if (field === 'title') title.value = value
+      else description.value = value
+    }, `meta:${field}`)
+  }
+
+  function listFor(listId: string): RoutineStep[] | null {
+    if (listId === ROOT) return steps.value
+    const found = locate(steps.value, listId)
+    return found?.step.type === 'repeat' ? found.step.steps : null
+  }
+
+  function depthOfList(listId: string): number {
+    if (listId === ROOT) return 0
+    const found = locate(steps.value, listId)
+    return found ? found.depth + 1 : 0
+  }
+
+  const find = (id: string) => locate(steps.value, id)
+  const placeOf = (id: string): StepPlace | null => {
+    const found = find(id)
+    return found ? { listId: found.parent?.id ?? ROOT, index: found.index } : null
+  }
+
+  function addStep(step: RoutineStep, listId = ROOT, index?: number) {
+    const list = listFor(listId)
+    if (!list || depthOfList(listId) + repeatHeight(step) > MAX_NESTING) return null
+    commit(() => {
+      list.splice(index ?? list.length, 0, step)
+    })
+    return step.id
+  }
+  const addBlock = (kind: BlockKind = 'work', listId = ROOT) => addStep(makeBlock(kind), listId)
+  const addSets = (exerciseId = 0, listId = ROOT) => addStep(makeSets(exerciseId), listId)
+  const addRepeat = (listId = ROOT, times = 4) => addStep(makeRepeat(times), listId)
+
+  function duplicateStep(id: string) {
+    const found = find(id)
+    if (!found) return null
+    return addStep(withFreshIds(found.step), found.parent?.id ?? ROOT, found.index + 1)
+  }
+
+  /**
+   * Changes fields of a step. `coalesceKey` merges a run of edits to one field (typing) into one undo step.
+   * A `null` value removes an optional field.
+   */
+  function updateStep(id: string, patch: Record<string, unknown>, coalesceKey?: string) {
+    const found = find(id)
+    if (!found) return false
+    commit(() => {
+      const target = found.step as unknown as Record<string, unknown>
+      for (const [key, value] of Object.entries(patch)) {
+        if (key === 'id' || key === 'type') continue
+        if (value === null || value === undefined) Reflect.deleteProperty(target, key)
+        else target[key] = clone(value)
+      }
+    }, coalesceKey ? `${id}:${coalesceKey}` : undefined)
+    return true
+  }
+
+  function removeStep(id: string) {
+    const found = find(id)
+    if (!found) return false
+    commit(() => {
+      found.list.splice(found.index, 1)
+    })
+    return true
+  }
+
+  const canMoveUp = (id: string) => (find(id)?.index ?? 0) > 0
+  const canMoveDown = (id: string) => {
+    const found = find(id)
+    return Boolean(found && found.index < found.list.length - 1)
+  }
+  function canIndent(id: string) {
+    const found = find(id)
+    const above = found && found.index > 0 ? found.list[found.index - 1] : undefined
+    return Boolean(found && above?.type === 'repeat' && found.depth + 1 + repeatHeight(found.step) <= MAX_NESTING)
+  }
+  const canOutdent = (id: string) => Boolean(find(id)?.parent)
+
+  function moveUp(id: string) {
+    const found = find(id)
+    if (!found || found.index === 0) return false
+    commit(() => {
+      const [step] = found.list.splice(found.index, 1)
+      found.list.splice(found.index - 1, 0, step!)
+    })
+    return true
+  }
+
+  function moveDown(id: string) {
+    const found = find(id)
+    if (!found || found.index >= found.list.length - 1) return false
+    commit(() => {
+      const [step] = found.list.splice(found.index, 1)
+      found.list.splice(found.index + 1, 0, step!)
+    })
+    return true
+  }
+
+  /** Moves a step into the repeat just above it, as that repeat's last step. */
+  function indent(id: string) {
+    if (!canIndent(id)) return false
+    const found = find(id)!
+    const above = found.list[found.index - 1] as RepeatStep
+    commit(() => {
+      const [step] = found.list.splice(found.index, 1)
+      above.steps.push(step!)
+    })
+    return true
+  }
+
+  /** Moves a step out of its repeat, to just after that repeat. */
+  function outdent(id: string) {
+    const found = find(id)
+    if (!found?.parent) return false
+    const parentPlace = find(found.parent.id)!
+    commit(() => {
+      const [step] = found.list.splice(found.index, 1)
+      parentPlace.list.splice(parentPlace.index + 1, 0, step!)
+    })
+    return true
+  }
+
+  /**
+   * A drag from one list position to another (lists are the routine or a repeat's steps). `to.index` is
+   * the position in the target list once the step has left its old place, as the drag library reports it.
+   */
+  function move(from: StepPlace, to: StepPlace) {
+    const source = listFor(from.listId)
+    const target = listFor(to.listId)
+    const step = source?.[from.index]
+    if (!source || !target || !step) return false
+    if (to.listId === step.id || (to.listId !== ROOT && contains(step, to.listId))) return false
+    if (depthOfList(to.listId) + repeatHeight(step) > MAX_NESTING) return false
+    if (from.listId === to.listId && from.index === to.index) return false
+    commit(() => {
+      source.splice(from.index, 1)
+      target.splice(Math.min(Math.max(to.index, 0), target.length), 0, step)
+    })
+    return true
+  }
+
+  function rememberExercise(exercise: DraftExercise) {
+    exercises.value = { ...exercises.value, [exercise.id]: exercise }
+  }
+  const exerciseName = (id: number) => exercises.value[id]?.name
+
+  const stepValidation = computed(() => routineStepsSchema.safeParse(steps.value))
+  const metaValidation = computed(() => routineMetaSchema.safeParse(content()))
+
+  /** Client and server messages by step id, then by field within the step ('_' for the step as a whole). */
+  const stepErrors = computed(() => {
+    const errors: Record<string, FieldMessages> = {}
+    const add = (path: (string | number)[], message: string) => {
+      const place = locatePath(steps.value, path)
+      if (!place) return
+      errors[place.stepId] ??= {}
+      errors[place.stepId]![place.field] ??= message
+    }
+    for (const [key, message] of Object.entries(serverErrors.value)) add(key.split('.'), message)
+    if (!stepValidation.value.success) {
+      for (const issue of stepValidation.value.error.issues) add(['steps', ...issue.path as (string | number)[]], issue.message)
+    }
+    return errors
+  })
+
+  /** Messages about the routine itself: its title, category, description, and the step list as a whole. */
+  const routineErrors = computed(() => {
+    const errors: FieldMessages = {}
+    for (const [key, message] of Object.entries(serverErrors.value)) {
+      if (!key.startsWith('steps.') || !locatePath(steps.value, key.split('.'))) errors[key] ??= message
+    }
+    if (!metaValidation.value.success) {
+      for (const issue of metaValidation.value.error.issues) errors[issue.path.join('.') || '_'] ??= issue.message
+    }
+    if (!stepValidation.value.success) {
+      for (const issue of stepValidation.value.error.issues) {
+        if (!locatePath(steps.value, ['steps', ...issue.path as (string | number)[]])) errors.steps ??= issue.message
+      }
+    }
+    return errors
+  })
+
+  const valid = computed(() => stepValidation.value.success && metaValidation.value.success)
+  const errorCount = computed(() => Object.values(stepErrors.value).reduce((sum, fields) => sum + Object.keys(fields).length, 0) + Object.keys(routineErrors.value).length)
+
+  function applyServerErrors(fields: FieldMessages) {
+    serverErrors.value = { ...fields }
+  }
+
+  /** Totals and segments as the shared timeline computes them; null while the tree cannot be timed. */
+  const timeline = computed(() => {
+    // A missing exercise or a bad note does not change the clock; a bad number or count does.
+    if (!stepValidation.value.success && stepValidation.value.error.issues.some((issue) => {
+      const field = [...issue.path].reverse().find(part => typeof part === 'string')
+      return issue.path.length === 0 || (typeof field === 'string' && timingFields.has(field))
+    })) return null
+    try {
+      return buildTimeline(steps.value)
+    }
+    catch {
+      return null
+    }
+  })
+  const totals = computed(() => timeline.value?.totals ?? null)
+
+  function payload() {
+    return clone({ ...content(), ...(version.value ? { version: version.value } : {}) })
+  }
+
+  return {
+    routineId,
+    version,
+    title,
+    category,
+    description,
+    steps,
+    exercises,
+    dirty,
+    canUndo,
+    canRedo,
+    stepErrors,
+    routineErrors,
+    valid,
+    errorCount,
+    timeline,
+    totals,
+    load,
+    reset,
+    markSaved,
+    undo,
+    redo,
+    setMeta,
+    addStep,
+    addBlock,
+    addSets,
+    addRepeat,
+    duplicateStep,
+    updateStep,
+    removeStep,
+    moveUp,
+    moveDown,
+    indent,
+    outdent,
+    move,
+    canMoveUp,
+    canMoveDown,
+    canIndent,
+    canOutdent,
+    placeOf,
+    rememberExercise,
+    exerciseName,
+    applyServerErrors,
+    payload,
+  }
+})
