@@ -21,6 +21,8 @@ export default defineNuxtConfig({
   css: ['~/assets/css/main.css'],
   runtimeConfig: {
     session: { maxAge: 60 * 60 * 24 * 30, password: '' },
+    // NUXT_PUBLIC_PLAYER_SPEED_PARAM=true lets `?speed=` run the session player faster (tests, demos).
+    public: { playerSpeedParam: false },
   },
   srcDir: '.',
   serverDir: 'server',

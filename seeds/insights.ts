@@ -1,12 +1,17 @@
 import { and, eq, sql } from 'drizzle-orm'
 import { assignments, entryLogs, exercises, painFlags, routines, sessionLogs } from '../server/db/schema'
 import type { AssignmentSnapshot } from '../shared/types/domain'
+import type { RoutineStep } from '../shared/utils/timeline'
 import { addDays, todayIn } from '../shared/utils/insights'
 import type { SeedStep } from './context'
 
 // Six weeks of past training for the demo athletes, so the insights pages have something to show.
 // Skipped when the team already has session logs (from the session player's own demo data, or an earlier run).
 const TITLE = 'Ridge strength circuit'
+
+function squatSets(exerciseId: number): RoutineStep[] {
+  return [{ id: 'goblet-squat', type: 'sets', exerciseId, sets: 3, perSet: { by: 'reps', reps: 8 }, restSeconds: 90 }]
+}
 
 export const seedInsights: SeedStep = async ({ db, teamId, users, log }) => {
   const [existing] = await db.select({ count: sql<number>`count(*)` }).from(sessionLogs).where(eq(sessionLogs.teamId, teamId))
@@ -17,8 +22,14 @@ export const seedInsights: SeedStep = async ({ db, teamId, users, log }) => {
   let [squat] = await db.select().from(exercises).where(and(eq(exercises.teamId, teamId), eq(exercises.name, 'Goblet squat'))).limit(1)
   squat ??= (await db.insert(exercises).values({ teamId, name: 'Goblet squat', category: 'strength', summary: 'Squat holding one weight at the chest.', cues: ['Chest tall', 'Knees track over toes'] }).returning())[0]!
   let [routine] = await db.select().from(routines).where(and(eq(routines.teamId, teamId), eq(routines.title, TITLE))).limit(1)
-  routine ??= (await db.insert(routines).values({ teamId, title: TITLE, category: 'strength', description: 'Squats, lunges and calf raises for hill strength.', steps: [], createdById: users.coach }).returning())[0]!
-  const snapshot: AssignmentSnapshot = { title: TITLE, category: 'strength', description: routine.description, steps: [], exercises: [] }
+  routine ??= (await db.insert(routines).values({ teamId, title: TITLE, category: 'strength', description: 'Goblet squats for climbing strength.', steps: squatSets(squat.id), createdById: users.coach }).returning())[0]!
+  const snapshot: AssignmentSnapshot = {
+    title: TITLE,
+    category: 'strength',
+    description: routine.description,
+    steps: routine.steps,
+    exercises: [{ id: squat.id, name: squat.name, category: squat.category, summary: squat.summary, cues: squat.cues, equipment: squat.equipment, cautions: squat.cautions }],
+  }
   const today = todayIn('Europe/London')
 
   await db.transaction(async (tx) => {

@@ -1,0 +1,88 @@
+export interface CueSettings {
+  sound: boolean
+  speech: boolean
+  vibration: boolean
+  keepAwake: boolean
+}
+
+const SETTINGS_KEY = 'switchback.player.settings.v1'
+
+/** Beeps (Web Audio), spoken step names, vibration and the screen wake lock, each switchable. */
+export function useSessionCues() {
+  const settings = useState<CueSettings>('session-cue-settings', () => ({ sound: true, speech: false, vibration: true, keepAwake: true }))
+  let audio: AudioContext | undefined
+  let wakeLock: WakeLockSentinel | undefined
+
+  function loadSettings() {
+    try {
+      const stored = JSON.parse(localStorage.getItem(SETTINGS_KEY) ?? 'null') as Partial<CueSettings> | null
+      if (stored) settings.value = { ...settings.value, ...stored }
+    }
+    catch {
+      // defaults
+    }
+  }
+
+  function saveSettings() {
+    try {
+      localStorage.setItem(SETTINGS_KEY, JSON.stringify(settings.value))
+    }
+    catch {
+      // not stored; still applies now
+    }
+  }
+
+  /** Call from a tap or key press: browsers only allow sound after a gesture. */
+  function unlock() {
+    if (!settings.value.sound || typeof AudioContext === 'undefined') return
+    audio ??= new AudioContext()
+    if (audio.state === 'suspended') void audio.resume()
+  }
+
+  function tone(frequency: number, seconds: number, volume = 0.25) {
+    if (!settings.value.sound || !audio) return
+    const oscillator = audio.createOscillator()
+    const gain = audio.createGain()
+    oscillator.frequency.value = frequency
+    oscillator.type = 'sine'
+    const start = audio.currentTime
+    gain.gain.setValueAtTime(volume, start)
+    gain.gain.exponentialRampToValueAtTime(0.001, start + seconds)
+    oscillator.connect(gain).connect(audio.destination)
+    oscillator.start(start)
+    oscillator.stop(start + seconds)
+  }
+
+  function countdown() {
+    tone(660, 0.12)
+  }
+
+  function change(nextLabel?: string) {
+    tone(990, 0.35, 0.35)
+    if (settings.value.vibration && 'vibrate' in navigator) navigator.vibrate([120, 60, 120])
+    if (settings.value.speech && nextLabel && 'speechSynthesis' in window) {
+      window.speechSynthesis.cancel()
+      window.speechSynthesis.speak(new SpeechSynthesisUtterance(nextLabel))
+    }
+  }
+
+  async function keepAwake(on: boolean) {
+    if (!on || !settings.value.keepAwake) {
+      await wakeLock?.release().catch(() => undefined)
+      wakeLock = undefined
+      return
+    }
+    if (wakeLock || !('wakeLock' in navigator) || document.visibilityState !== 'visible') return
+    try {
+      wakeLock = await navigator.wakeLock.request('screen')
+      wakeLock.addEventListener('release', () => {
+        wakeLock = undefined
+      })
+    }
+    catch {
+      // Refused (battery saver, no permission): the session still runs.
+    }
+  }
+
+  return { settings, loadSettings, saveSettings, unlock, countdown, change, keepAwake }
+}

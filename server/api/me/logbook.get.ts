@@ -1,0 +1,8 @@
+import { logbookQuerySchema } from '../../../shared/schemas/session'
+
+export default defineEventHandler(async (event) => {
+  const caller = await requireTeamRole(event, 'athlete')
+  const range = queryWith(event, logbookQuerySchema)
+  const db = await useDb()
+  return { sessions: await loadLogbook(db, caller.teamId, caller.userId, range) }
+})

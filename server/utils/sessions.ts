@@ -1,0 +1,102 @@
+import { and, eq } from 'drizzle-orm'
+import type { Database } from '../db/client'
+import type { entryLogs } from '../db/schema'
+import { assignments, memberships, sessionLogs, users } from '../db/schema'
+import type { Caller } from './auth'
+import { EDIT_WINDOW_DAYS } from '../../shared/schemas/session'
+
+/** The calendar day of `at` in the athlete's time zone, `YYYY-MM-DD`. */
+export function localDay(at: Date, timeZone: string) {
+  try {
+    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at)
+  }
+  catch {
+    return at.toISOString().slice(0, 10)
+  }
+}
+
+/** An assignment of the calling athlete; anyone else's (or another team's) is a 404. */
+export async function findOwnAssignment(db: Database, caller: Caller, id: number) {
+  const [row] = await db.select().from(assignments)
+    .where(and(eq(assignments.id, id), eq(assignments.teamId, caller.teamId), eq(assignments.athleteId, caller.userId)))
+    .limit(1)
+  if (!row) notFound('No such assignment')
+  return row
+}
+
+/** A session the caller logs into: their own. */
+export async function findOwnSession(db: Database, caller: Caller, id: number) {
+  const [row] = await db.select().from(sessionLogs)
+    .where(and(eq(sessionLogs.id, id), eq(sessionLogs.teamId, caller.teamId), eq(sessionLogs.athleteId, caller.userId)))
+    .limit(1)
+  if (!row) notFound('No such session')
+  return row
+}
+
+/** A session the caller may read: their own, or any of the team's when they coach it. */
+export async function findReadableSession(db: Database, caller: Caller, id: number) {
+  const conditions = [eq(sessionLogs.id, id), eq(sessionLogs.teamId, caller.teamId)]
+  if (!isCoachRole(caller.role)) conditions.push(eq(sessionLogs.athleteId, caller.userId))
+  const [row] = await db.select().from(sessionLogs).where(and(...conditions)).limit(1)
+  if (!row) notFound('No such session')
+  return row
+}
+
+export function editableUntil(session: { startedAt: Date }) {
+  return new Date(session.startedAt.getTime() + EDIT_WINDOW_DAYS * 86_400_000)
+}
+
+export function assertEditable(session: { startedAt: Date }) {
+  if (Date.now() > editableUntil(session).getTime()) {
+    throw createError({ statusCode: 409, statusMessage: 'Too late to edit', message: `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start`, data: { fields: { _: `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start` } } })
+  }
+}
+
+export type EntryRow = typeof entryLogs.$inferSelect
+
+export function entryView(entry: EntryRow) {
+  return {
+    id: entry.id,
+    sessionId: entry.sessionId,
+    idempotencyKey: entry.idempotencyKey,
+    stepId: entry.stepId,
+    exerciseId: entry.exerciseId,
+    set: entry.set,
+    round: entry.round,
+    reps: entry.reps,
+    kg: entry.kg,
+    seconds: entry.seconds,
+    meters: entry.meters,
+    rpe: entry.rpe,
+    createdAt: entry.createdAt,
+  }
+}
+
+export function sessionView(session: typeof sessionLogs.$inferSelect) {
+  return {
+    id: session.id,
+    assignmentId: session.assignmentId,
+    athleteId: session.athleteId,
+    clientId: session.clientId,
+    startedAt: session.startedAt,
+    finishedAt: session.finishedAt,
+    day: session.day,
+    durationS: session.durationS,
+    sessionRpe: session.sessionRpe,
+    load: session.load,
+    pain: session.pain,
+    painArea: session.painArea,
+    note: session.note,
+    editableUntil: editableUntil(session),
+  }
+}
+
+/** An athlete of the caller's team, or a 404. */
+export async function findTeamAthlete(db: Database, teamId: number, athleteId: number) {
+  const [row] = await db.select({ id: users.id, name: users.name, email: users.email, timezone: users.timezone })
+    .from(users)
+    .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.teamId, teamId), eq(memberships.role, 'athlete')))
+    .where(eq(users.id, athleteId)).limit(1)
+  if (!row) notFound('No such athlete')
+  return row
+}
