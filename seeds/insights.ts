@@ -2,7 +2,7 @@ import { and, eq, sql } from 'drizzle-orm'
 import { assignments, entryLogs, exercises, painFlags, routines, sessionLogs } from '../server/db/schema'
 import type { AssignmentSnapshot } from '../shared/types/domain'
 import type { RoutineStep } from '../shared/utils/timeline'
-import { addDays, todayIn } from '../shared/utils/insights'
+import { addDays, todayIn } from '../shared/utils/dates'
 import type { SeedStep } from './context'
 
 // Six weeks of past training for the demo athletes, so the insights pages have something to show.

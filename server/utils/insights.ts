@@ -2,9 +2,10 @@ import { and, asc, between, desc, eq, gte, inArray, isNotNull, lte, sql } from '
 import type { Database } from '../db/client'
 import { assignments, entryLogs, exercises, memberships, painFlags, sessionLogs, squadMembers, squads, users } from '../db/schema'
 import {
-  addDays, compliance, mondayOf, RATIO_LOOKBACK_DAYS, ratiosOn, roundKg, roundLoad, roundVolume, todayIn, weeklyLoads,
+  compliance, RATIO_LOOKBACK_DAYS, ratiosOn, roundKg, roundLoad, roundVolume, weeklyLoads,
   type Compliance, type DailyLoad,
 } from '../../shared/utils/insights'
+import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
 import { e1rmEpley, volumeLoad } from '../../shared/utils/strength'
 
 // An assignment counts as done when the athlete finished a session for it, or marked it done or partly done.
@@ -60,7 +61,7 @@ export async function listTeamAthletes(db: Database, teamId: number, squadId?: n
   return rows.map(row => ({ ...row, openPainFlags: Number(row.openPainFlags) }))
 }
 
-export async function findTeamAthlete(db: Database, teamId: number, athleteId: number) {
+async function teamAthleteOrNull(db: Database, teamId: number, athleteId: number) {
   const [athlete] = await listAthletesByIds(db, teamId, [athleteId])
   return athlete ?? null
 }
@@ -154,7 +155,7 @@ export async function teamInsightsRows(db: Database, teamId: number, squadId?: n
     const today = todays.get(athlete.id)!
     const daily = loads.get(athlete.id) ?? []
     const assigned = counts.get(athlete.id) ?? []
-    const weekStart = mondayOf(today)
+    const weekStart = startOfWeek(today)
     const weekLoad = daily.filter(row => row.day >= weekStart && row.day <= today).reduce((total, row) => total + row.load, 0)
     return {
       athleteId: athlete.id,
@@ -369,12 +370,12 @@ export async function strengthTrends(db: Database, teamId: number, athleteId: nu
 
 /** Everything on one athlete's page; the athlete must be in `teamId` (callers check who may see it). */
 export async function athleteInsights(db: Database, teamId: number, athleteId: number, weeks = 12, now = new Date()) {
-  const athlete = await findTeamAthlete(db, teamId, athleteId)
+  const athlete = await teamAthleteOrNull(db, teamId, athleteId)
   if (!athlete) return null
   const today = todayIn(athlete.timezone, now)
-  const from = addDays(mondayOf(today), -(weeks - 1) * 7)
-  const calendarFrom = addDays(mondayOf(today), -5 * 7)
-  const calendarTo = addDays(mondayOf(today), 6)
+  const from = addDays(startOfWeek(today), -(weeks - 1) * 7)
+  const calendarFrom = addDays(startOfWeek(today), -5 * 7)
+  const calendarTo = addDays(startOfWeek(today), 6)
   const [[bounds], loads, calendarRows, painRows, flags, strength, sessions] = await Promise.all([
     db.select({ firstDay: sql<string | null>`min(${sessionLogs.day})`, lastDay: sql<string | null>`max(${sessionLogs.day})` })
       .from(sessionLogs).where(and(eq(sessionLogs.athleteId, athleteId), eq(sessionLogs.teamId, teamId))),

@@ -5,16 +5,6 @@ import { assignments, memberships, sessionLogs, users } from '../db/schema'
 import type { Caller } from './auth'
 import { EDIT_WINDOW_DAYS } from '../../shared/schemas/session'
 
-/** The calendar day of `at` in the athlete's time zone, `YYYY-MM-DD`. */
-export function localDay(at: Date, timeZone: string) {
-  try {
-    return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at)
-  }
-  catch {
-    return at.toISOString().slice(0, 10)
-  }
-}
-
 /** An assignment of the calling athlete; anyone else's (or another team's) is a 404. */
 export async function findOwnAssignment(db: Database, caller: Caller, id: number) {
   const [row] = await db.select().from(assignments)

@@ -90,18 +90,20 @@ export function seriesDates({ startDate, weeks, weekdays }: SeriesPattern): stri
   return daysInRange(startDate, addDays(startDate, weeks * 7 - 1)).filter(day => wanted.has(weekdayOf(day)))
 }
 
+// Building a DateTimeFormat costs far more than using one; keep one per time zone.
+const dayFormats = new Map<string, Intl.DateTimeFormat | null>()
+
 /** Today's calendar day for someone in `timeZone` (an IANA name); unknown zones count as UTC. */
 export function todayIn(timeZone: string, now: Date = new Date()): string {
-  let zone = timeZone
-  try {
-    new Intl.DateTimeFormat('en-CA', { timeZone: zone })
+  if (!dayFormats.has(timeZone)) {
+    try {
+      dayFormats.set(timeZone, new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }))
+    }
+    catch {
+      dayFormats.set(timeZone, null)
+    }
   }
-  catch {
-    zone = 'UTC'
-  }
-  const parts = new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(now)
-  const part = (type: string) => parts.find(p => p.type === type)!.value
-  return `${part('year')}-${part('month')}-${part('day')}`
+  return dayFormats.get(timeZone)?.format(now) ?? now.toISOString().slice(0, 10)
 }
 
 /** A midnight-UTC Date for a calendar day: what date-only formatters (Intl with timeZone UTC, iCalendar) expect. */

@@ -1,3 +1,4 @@
+import { addDays, daysBetween, startOfWeek } from './dates'
 import { acwrEwma, acwrRolling, weeklyTotals } from './load'
 
 // Aggregation for insights. Formulas live in load.ts / strength.ts; this file only arranges SQL-aggregated
@@ -35,59 +36,13 @@ export interface WeekLoad {
   acwrEwma: number | null
 }
 
-const DAY_MS = 86_400_000
-
-function dayNumber(day: string): number {
-  const time = Date.parse(`${day}T00:00:00Z`)
-  if (Number.isNaN(time)) throw new RangeError(`"${day}" is not a date like 2026-03-15`)
-  return Math.round(time / DAY_MS)
-}
-
-function dayFromNumber(value: number): string {
-  return new Date(value * DAY_MS).toISOString().slice(0, 10)
-}
-
-export function addDays(day: string, days: number): string {
-  return dayFromNumber(dayNumber(day) + days)
-}
-
-/** Days from `from` to `to` (0 for the same day, negative when `to` is earlier). */
-export function daysBetween(from: string, to: string): number {
-  return dayNumber(to) - dayNumber(from)
-}
-
-/** The Monday on or before `day` (ISO 8601 weeks start on Monday). */
-export function mondayOf(day: string): string {
-  const value = dayNumber(day)
-  // 1970-01-01 was a Thursday: day 0 → weekday index 3 with Monday = 0.
-  const weekday = (value + 3) % 7
-  return dayFromNumber(value - weekday)
-}
-
-// Building a DateTimeFormat costs far more than using one; keep one per time zone.
-const dayFormats = new Map<string, Intl.DateTimeFormat | null>()
-
-/** Today's calendar date in an IANA time zone; unknown zones fall back to UTC. */
-export function todayIn(timeZone: string, now = new Date()): string {
-  if (!dayFormats.has(timeZone)) {
-    try {
-      dayFormats.set(timeZone, new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }))
-    }
-    catch {
-      dayFormats.set(timeZone, null)
-    }
-  }
-  return dayFormats.get(timeZone)?.format(now) ?? now.toISOString().slice(0, 10)
-}
-
 /** One load per day from `from` to `to` inclusive, 0 on days without a session; rows may be sparse and unordered. */
 export function dailySeries(rows: readonly DailyLoad[], from: string, to: string): number[] {
   const length = daysBetween(from, to) + 1
   if (length <= 0) return []
   const series = Array.from({ length }, () => 0)
-  const start = dayNumber(from)
   for (const row of rows) {
-    const index = dayNumber(row.day) - start
+    const index = daysBetween(from, row.day)
     if (index >= 0 && index < length) series[index]! += row.load
   }
   return series
@@ -119,8 +74,8 @@ export function ratiosOn(rows: readonly DailyLoad[], firstDay: string | null, da
  * or at `today` for the current week.
  */
 export function weeklyLoads(rows: readonly (DailyLoad & { sessions?: number })[], firstDay: string | null, from: string, today: string): WeekLoad[] {
-  const start = mondayOf(from)
-  const end = addDays(mondayOf(today), 6)
+  const start = startOfWeek(from)
+  const end = addDays(startOfWeek(today), 6)
   const totals = weeklyTotals(dailySeries(rows, start, end), 7)
   const sessions = dailySeries(rows.map(row => ({ day: row.day, load: row.sessions ?? 0 })), start, end)
   return totals.map((total, index) => {

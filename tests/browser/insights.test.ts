@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import type { Database } from '../../server/db/client'
-import { addDays, todayIn } from '../../shared/utils/insights'
+import { addDays, todayIn } from '../../shared/utils/dates'
 import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
 import { createRoutine, insertHistory, insertPainFlag, openTestDatabase } from '../support/insights-data'
 import { startStack, type Stack } from '../support/stack'

@@ -3,7 +3,8 @@ import { eq } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Database } from '../../server/db/client'
 import { athleteProfiles } from '../../server/db/schema'
-import { addDays, mondayOf, ratiosOn, todayIn } from '../../shared/utils/insights'
+import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
+import { ratiosOn } from '../../shared/utils/insights'
 import type { ApiClient, FieldError } from '../support/client'
 import { createRoutine, insertHistory, insertPainFlag, openTestDatabase, type HistoryDay } from '../support/insights-data'
 import { startStack, type Stack } from '../support/stack'
@@ -97,7 +98,7 @@ describe('team table', () => {
     expect(row.compliance7).toEqual({ done: 5, assigned: 7, percent: 71 })
     expect(row.compliance28).toEqual({ done: 21, assigned: 28, percent: 75 })
     expect(row.lastSession).toBe(today)
-    const thisWeek = doneDays(tamsinDays).filter(day => day.day >= mondayOf(today) && day.day <= today)
+    const thisWeek = doneDays(tamsinDays).filter(day => day.day >= startOfWeek(today) && day.day <= today)
     expect(row.weekLoad).toBe(Math.round(thisWeek.length * 123.4))
     // The history starts at the first session: 41 days ago was a miss, so 40 days ago.
     const expected = ratiosOn(doneDays(tamsinDays), addDays(today, -40), today)
@@ -141,7 +142,7 @@ describe('athlete page', () => {
     const team = (await teamA.coach.get<TeamAnswer>('/api/insights/team')).data.rows.find(r => r.athleteId === tamsin.userId)!
     expect(data.summary).toMatchObject({ compliance7: team.compliance7, compliance28: team.compliance28, weekLoad: team.weekLoad, acwrRolling: team.acwrRolling, acwrEwma: team.acwrEwma, openPainFlags: 1 })
     expect(data.weeks).toHaveLength(12)
-    expect(data.weeks.at(-1)!.weekStart).toBe(mondayOf(today))
+    expect(data.weeks.at(-1)!.weekStart).toBe(startOfWeek(today))
     const lastFull = data.weeks.at(-2)!
     const inWeek = doneDays(tamsinDays).filter(day => day.day >= lastFull.weekStart && day.day <= addDays(lastFull.weekStart, 6))
     expect(lastFull.sessions).toBe(inWeek.length)

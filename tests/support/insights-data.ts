@@ -1,7 +1,7 @@
 import { openDatabase, type Database } from '../../server/db/client'
 import { assignments, entryLogs, exercises, painFlags, routines, sessionLogs } from '../../server/db/schema'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { addDays } from '../../shared/utils/insights'
+import { addDays } from '../../shared/utils/dates'
 
 // Inserts training history straight into the test database, the way the planner and the player would leave it.
 

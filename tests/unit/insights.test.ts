@@ -1,17 +1,18 @@
 import { describe, expect, it } from 'vitest'
+import { addDays, daysBetween, startOfWeek, todayIn } from '../../shared/utils/dates'
 import {
-  addDays, compliance, dailySeries, daysBetween, mondayOf, ratioBand, ratiosOn, roundKg, roundLoad, roundRatio, todayIn, weeklyLoads,
+  compliance, dailySeries, ratioBand, ratiosOn, roundKg, roundLoad, roundRatio, weeklyLoads,
 } from '../../shared/utils/insights'
 import { complianceOver, sortTeamRows, type TeamInsightsRow } from '../../server/utils/insights'
 
 describe('calendar days', () => {
   it('finds the Monday that starts an ISO week', () => {
     // ISO 8601 weeks start on Monday; 2026-03-15 is a Sunday, 2026-03-16 a Monday (calendar fact).
-    expect(mondayOf('2026-03-15')).toBe('2026-03-09')
-    expect(mondayOf('2026-03-16')).toBe('2026-03-16')
-    expect(mondayOf('2026-03-18')).toBe('2026-03-16')
+    expect(startOfWeek('2026-03-15')).toBe('2026-03-09')
+    expect(startOfWeek('2026-03-16')).toBe('2026-03-16')
+    expect(startOfWeek('2026-03-18')).toBe('2026-03-16')
     // Across a year end: 2027-01-01 is a Friday, its week starts Monday 2026-12-28.
-    expect(mondayOf('2027-01-01')).toBe('2026-12-28')
+    expect(startOfWeek('2027-01-01')).toBe('2026-12-28')
   })
 
   it('adds days and counts them across month and leap-day boundaries', () => {

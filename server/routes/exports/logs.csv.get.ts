@@ -1,6 +1,7 @@
 import Papa from 'papaparse'
 import { exportLogsQuerySchema } from '../../../shared/schemas/insights'
-import { addDays, daysBetween, mondayOf, RATIO_LOOKBACK_DAYS, todayIn, weeklyLoads } from '../../../shared/utils/insights'
+import { addDays, daysBetween, startOfWeek, todayIn } from '../../../shared/utils/dates'
+import { RATIO_LOOKBACK_DAYS, weeklyLoads } from '../../../shared/utils/insights'
 
 const MAX_RANGE_DAYS = 3 * 366
 
@@ -29,7 +30,7 @@ export default defineEventHandler(async (event) => {
 
   let csv: string
   if (query.kind === 'weeks') {
-    const loads = await dailyLoadsByAthlete(db, caller.teamId, addDays(mondayOf(from), -(RATIO_LOOKBACK_DAYS - 1)), to, ids)
+    const loads = await dailyLoadsByAthlete(db, caller.teamId, addDays(startOfWeek(from), -(RATIO_LOOKBACK_DAYS - 1)), to, ids)
     const rows = athletes.flatMap((athlete) => {
       const athleteToday = todayIn(athlete.timezone)
       const end = to < athleteToday ? to : athleteToday

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { idParamsSchema } from '../../../../shared/schemas/common'
 import { startSessionSchema } from '../../../../shared/schemas/session'
+import { todayIn } from '../../../../shared/utils/dates'
 import { sessionLogs } from '../../../db/schema'
 
 const EARLIEST_START_MS = 7 * 86_400_000
@@ -24,7 +25,7 @@ export default defineEventHandler(async (event) => {
     athleteId: caller.userId,
     clientId: body.clientId,
     startedAt,
-    day: localDay(startedAt, caller.timezone),
+    day: todayIn(caller.timezone, startedAt),
   }).onConflictDoNothing().returning()
   const [session] = inserted.length
     ? inserted

@@ -1,17 +1,9 @@
 import { and, asc, eq, isNull, sql } from 'drizzle-orm'
 import { idParamsSchema } from '../../../../shared/schemas/common'
+import { todayIn } from '../../../../shared/utils/dates'
 import { routineExercises, routines } from '../../../db/schema'
 
 const UPCOMING_LIMIT = 100
-
-function todayIn(timezone: string) {
-  try {
-    return new Intl.DateTimeFormat('en-CA', { timeZone: timezone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date())
-  }
-  catch {
-    return new Date().toISOString().slice(0, 10)
-  }
-}
 
 /** Where an exercise is used: the team's live routines, and upcoming assignments that include it. */
 export default defineEventHandler(async (event) => {
