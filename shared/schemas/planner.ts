@@ -61,6 +61,8 @@ export const assignmentRangeSchema = z.object({
 export const myAssignmentRangeSchema = z.object({
   from: isoDateSchema.optional(),
   to: isoDateSchema.optional(),
+  // Without `from`: also return the last N days, so missed sessions can still be done or seen.
+  missedDays: z.coerce.number().int('Use a whole number of days').min(0, 'At least 0 days').max(14, 'At most 14 days').optional(),
 }).superRefine((value, ctx) => {
   if (!value.from || !value.to || !isCalendarDay(value.from) || !isCalendarDay(value.to)) return
   const span = daysBetween(value.from, value.to)

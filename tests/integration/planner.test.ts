@@ -188,6 +188,21 @@ describe('snapshots', () => {
     expect(westMine.data.today).toBe(westToday)
     expect(eastMine.data.today > westToday).toBe(true)
   })
+
+  it('returns the last days too when asked for missed sessions, and refuses more than 14', async () => {
+    const team = await squadTeam(1)
+    const [me] = team.athletes
+    const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'UTC' }).format(new Date())
+    const back = (days: number) => new Date(Date.parse(`${today}T00:00:00Z`) - days * 86_400_000).toISOString().slice(0, 10)
+    expect((await team.coach.post('/api/assignments', { routineId: team.routineId, athleteIds: [me!.userId], dates: [back(10), back(3), today] })).status).toBe(201)
+    const plain = await me!.athlete.get<Mine>('/api/me/assignments')
+    expect(plain.data.assignments.map(row => row.date)).toEqual([today])
+    const withMissed = await me!.athlete.get<Mine>('/api/me/assignments?missedDays=7')
+    expect(withMissed.data.assignments.map(row => [row.date, row.shownStatus])).toEqual([[back(3), 'overdue'], [today, 'planned']])
+    const tooFar = await me!.athlete.get<{ data: { fields: Record<string, string> } }>('/api/me/assignments?missedDays=30')
+    expect(tooFar.status).toBe(400)
+    expect(tooFar.data.data.fields.missedDays).toMatch(/At most 14/)
+  })
 })
 
 describe('calendar feed', () => {

@@ -4,13 +4,13 @@ import { myAssignmentRangeSchema } from '../../../shared/schemas/planner'
 import { shownStatus } from '../../../shared/utils/assignment-status'
 import { addDays, todayIn } from '../../../shared/utils/dates'
 
-/** The caller's own assignments (default: today and the next four weeks), in their time zone. */
+/** The caller's own assignments (default: today and the next four weeks, plus `missedDays` before today), in their time zone. */
 export default defineEventHandler(async (event) => {
   const caller = await requireTeamRole(event, 'athlete')
   const query = queryWith(event, myAssignmentRangeSchema)
   const today = todayIn(caller.timezone)
-  const from = query.from ?? today
-  const to = query.to ?? addDays(from, 27)
+  const from = query.from ?? addDays(today, -(query.missedDays ?? 0))
+  const to = query.to ?? addDays(query.from ?? today, 27)
   if (to < from) tooMany('to', 'The end comes before the start')
   const db = await useDb()
   const rows = await db.select({
