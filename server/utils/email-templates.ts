@@ -69,6 +69,21 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
       html: layout('Reset your password', [...lines, 'If it was not you, ignore this message: your password stays as it is.'], { url, label: 'Choose a new password' }),
     }
   },
+  pain_flag_reply(payload) {
+    const coach = str(payload, 'coachName')
+    const area = str(payload, 'area').replace('_', ' ')
+    const url = str(payload, 'url')
+    const lines = [
+      `${coach} read the pain you reported${area ? ` (${area}, ${str(payload, 'pain')}/10)` : ''} and replied:`,
+      str(payload, 'reply'),
+      'If the pain is sharp, getting worse or stops you moving normally, see a licensed clinician; Switchback does not replace one.',
+    ]
+    return {
+      subject: `${coach} replied to your pain report`,
+      text: `${lines.join('\n\n')}\n\n${url}`,
+      html: layout('Your coach replied', lines, { url, label: 'Open your progress page' }),
+    }
+  },
 }
 
 export function renderEmail(template: string, payload: Payload): RenderedEmail {

@@ -34,7 +34,7 @@ let teamA: Awaited<ReturnType<typeof registerCoach>>
 let teamB: Awaited<ReturnType<typeof registerCoach>>
 let squadId: number
 let otherSquadId: number
-let tamsin: { athlete: ApiClient, userId: number }
+let tamsin: { athlete: ApiClient, userId: number, email: string }
 let cai: { athlete: ApiClient, userId: number }
 let oren: { athlete: ApiClient, userId: number }
 let flagId: number
@@ -194,6 +194,10 @@ describe('pain flags', () => {
     expect(acknowledged.data).toMatchObject({ id: flagId, status: 'acknowledged', reply })
     expect((await teamA.coach.get<Flag[]>('/api/pain-flags?status=open')).data).toEqual([])
     expect((await teamA.coach.get<Flag[]>('/api/pain-flags?status=acknowledged')).data.map(flag => flag.id)).toEqual([flagId])
+
+    const mail = await stack.mail.waitFor(tamsin.email, /replied to your pain report/)
+    expect(mail.text).toContain(reply)
+    expect(mail.text).toContain('/progress')
 
     const mine = await tamsin.athlete.get<Flag[]>('/api/me/pain-flags')
     expect(mine.data).toEqual([expect.objectContaining({ id: flagId, status: 'acknowledged', reply })])
