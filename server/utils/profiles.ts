@@ -4,7 +4,7 @@ import type { Database } from '../db/client'
 import { athleteProfiles, injuryNotes } from '../db/schema'
 import type { ProfilePatch } from '../../shared/schemas/profile'
 import { hrMaxTanaka } from '../../shared/utils/heart'
-import { trainingPaces } from '../../shared/utils/pace'
+import { trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
 
 /** The profile page's data: stored values, injury notes, and what the app derives from them. */
 export async function loadProfileView(db: Database, teamId: number, athlete: { id: number, name: string }) {
@@ -15,7 +15,7 @@ export async function loadProfileView(db: Database, teamId: number, athlete: { i
   ])
   const age = profile?.birthYear ? new Date().getUTCFullYear() - profile.birthYear : null
   const hrMaxEstimate = age && age >= 8 && age <= 100 ? Math.round(hrMaxTanaka(age)) : null
-  let paces = null
+  let paces: TrainingPaces | null = null
   if (profile?.benchmarkDistanceM && profile.benchmarkTimeS) {
     try {
       paces = trainingPaces({ distanceM: profile.benchmarkDistanceM, timeS: profile.benchmarkTimeS })

@@ -74,6 +74,13 @@ export function formatPace(secPerKm: number, unit: PaceUnit = 'km'): string {
   return `${formatDuration(perUnit)} /${unit}`
 }
 
+/** A pace range such as easy running, fastest first; one pace when both ends round alike. */
+export function formatPaceRange(range: { fast: number, slow: number }, unit: PaceUnit = 'km'): string {
+  const fast = formatPace(range.fast, unit)
+  const slow = formatPace(range.slow, unit)
+  return fast === slow ? fast : `${fast} – ${slow}`
+}
+
 export function paceFromRace(distanceM: number, timeS: number): number {
   checkDistance(distanceM)
   checkTime(timeS)

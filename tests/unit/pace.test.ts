@@ -5,6 +5,7 @@ import {
   flatEquivalentPace,
   formatDuration,
   formatPace,
+  formatPaceRange,
   hillPaceForEffort,
   kmPaceToMilePace,
   milePaceToKmPace,
@@ -234,5 +235,14 @@ describe('Minetti et al. (2002), "Energy cost of walking and running at extreme 
   it('refuses a bad pace', () => {
     expect(() => hillPaceForEffort(0, 0.1)).toThrow(RangeError)
     expect(() => flatEquivalentPace(Number.POSITIVE_INFINITY, 0.1)).toThrow(RangeError)
+  })
+})
+
+describe('formatPaceRange', () => {
+  // Common practice, no published source: a range reads fastest first, and collapses when both ends agree.
+  it('shows both ends, or one pace when they round alike', () => {
+    expect(formatPaceRange({ fast: 270, slow: 330 })).toBe('4:30 /km – 5:30 /km')
+    expect(formatPaceRange({ fast: 300, slow: 300.2 })).toBe('5:00 /km')
+    expect(formatPaceRange({ fast: 240, slow: 300 }, 'mi')).toBe('6:26 /mi – 8:03 /mi')
   })
 })
