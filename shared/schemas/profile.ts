@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { bodyAreas } from '../types/domain'
+import { bodyAreas, injuryStatuses } from '../utils/vocabulary'
 import { isoDateSchema } from './common'
 
 const thisYear = new Date().getUTCFullYear()
@@ -19,14 +19,14 @@ export const injuryNoteSchema = z.object({
   bodyArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }),
   note: z.string().trim().max(500, 'Notes are at most 500 characters').default(''),
   since: isoDateSchema.nullable().optional(),
-  status: z.enum(['active', 'resolved']).default('active'),
+  status: z.enum(injuryStatuses).default('active'),
 })
 
 export const injuryNotePatchSchema = z.object({
   bodyArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }).optional(),
   note: z.string().trim().max(500, 'Notes are at most 500 characters').optional(),
   since: isoDateSchema.nullable().optional(),
-  status: z.enum(['active', 'resolved'], { error: 'Status is active or resolved' }).optional(),
+  status: z.enum(injuryStatuses, { error: 'Status is active or resolved' }).optional(),
 })
 
 export type ProfilePatch = z.infer<typeof profilePatchSchema>

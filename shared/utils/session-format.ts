@@ -1,4 +1,4 @@
-import { bodyAreaLabels, type BodyArea } from '../types/domain'
+import { bodyAreaLabel } from './vocabulary'
 import { formatPace, type PaceUnit } from './pace'
 import type { PlanSegment } from './session-plan'
 
@@ -50,5 +50,5 @@ export function positionText(segment: PlanSegment) {
 }
 
 export function areaLabel(area: string | null | undefined) {
-  return area ? (bodyAreaLabels[area as BodyArea] ?? area) : ''
+  return bodyAreaLabel(area)
 }
