@@ -71,3 +71,16 @@ export function describeStepDetails(step: RoutineStep): string {
   }
   return [describeMeasure(step.measure), describeTarget(step.target), step.grade ? formatGrade(step.grade) : ''].filter(Boolean).join(' · ')
 }
+
+/** The name of every step in a tree by its id, for screens that hold only a step id (the logbook). */
+export function stepNamesById(steps: readonly RoutineStep[], exerciseName?: (id: number) => string | undefined): Map<string, string> {
+  const names = new Map<string, string>()
+  const visit = (list: readonly RoutineStep[]) => {
+    for (const step of list) {
+      names.set(step.id, stepName(step, exerciseName))
+      if (step.type === 'repeat') visit(step.steps)
+    }
+  }
+  visit(steps)
+  return names
+}

@@ -56,7 +56,7 @@ export const blockKinds = ['warmup', 'work', 'recovery', 'rest', 'cooldown'] as 
 export type BlockKind = typeof blockKinds[number]
 export const blockKindLabels: Record<BlockKind, string> = {
   warmup: 'Easy start',
-  work: 'Hard effort',
+  work: 'Main effort',
   recovery: 'Easy between efforts',
   rest: 'Standing rest',
   cooldown: 'Easy finish',
@@ -64,7 +64,7 @@ export const blockKindLabels: Record<BlockKind, string> = {
 /** A line under each "add a step" button in the builder. */
 export const blockKindHints: Record<BlockKind, string> = {
   warmup: 'easy running or mobility to begin',
-  work: 'the main work: a climb, a stride, a drill',
+  work: 'the main work: a climb, a stride, a drill or a steady run',
   recovery: 'jog or walk between efforts',
   rest: 'stand still and recover',
   cooldown: 'easy running to end the session',
