@@ -1,6 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
-import { memberships, painFlags, users } from '../db/schema'
+import type { painFlags } from '../db/schema'
+import { memberships, users } from '../db/schema'
 import type { Caller } from './auth'
 
 type Transaction = Pick<Database, 'select' | 'insert'>

@@ -198,7 +198,6 @@ export interface TimelineOptions {
 
 type DraftSegment = Omit<TimelineSegment, 'startS'>
 
-
 /** Flattens a step tree into timed segments in the order an athlete does them, with totals. */
 export function buildTimeline(steps: readonly RoutineStep[], options: TimelineOptions = {}): Timeline {
   if (!Array.isArray(steps)) {
