@@ -2,7 +2,7 @@ import { relations, sql } from 'drizzle-orm'
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import type { RoutineStep } from '../../shared/utils/timeline'
 import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
-import { assignmentStatuses, exerciseCategories, injuryStatuses, painFlagReasons, painFlagStatuses, roles, routineCategories } from '../../shared/utils/vocabulary'
+import { assignmentStatuses, exerciseCategories, injuryStatuses, invitableRoles, painFlagReasons, painFlagStatuses, roles, routineCategories } from '../../shared/utils/vocabulary'
 
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
@@ -95,7 +95,7 @@ export const invites = sqliteTable('invites', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
   email: text('email').notNull(),
-  role: text('role', { enum: ['coach', 'athlete'] }).notNull(),
+  role: text('role', { enum: invitableRoles }).notNull(),
   squadId: integer('squad_id').references(() => squads.id, { onDelete: 'set null' }),
   tokenHash: text('token_hash').notNull(),
   invitedById: integer('invited_by_id').notNull().references(() => users.id, { onDelete: 'cascade' }),

@@ -5,6 +5,8 @@
 export const roles = ['head_coach', 'coach', 'athlete'] as const
 export type Role = typeof roles[number]
 export const roleLabels: Record<Role, string> = { head_coach: 'Head coach', coach: 'Coach', athlete: 'Athlete' }
+/** The roles an invitation can give; a head coach is made, not invited. */
+export const invitableRoles = ['athlete', 'coach'] as const satisfies readonly Role[]
 
 // Exercise and routine categories keep their stored keys (singular for exercises, plural for
 // routines); on screen both read as the same plural words so a coach sees one name per kind of work.
