@@ -152,3 +152,21 @@ describe('cautions that follow the body', () => {
     expect(preview.data.cautions[0]!.text).toMatch(/Achilles/)
   })
 })
+
+describe('young athletes', () => {
+  it('keeps a guardian contact, shows no age-based HRmax under 18 and flags the plan', async () => {
+    const young = await addAthlete(stack, team.coach, { name: 'Wren Calder' })
+    const birthYear = new Date().getUTCFullYear() - 16
+    const saved = await young.athlete.patch<{ profile: { guardianContact: string }, derived: { under18: boolean, hrMaxEstimate: number | null } }>('/api/me/profile', { birthYear, guardianContact: 'Parent: Ada Calder, 01632 960000' })
+    expect(saved.status).toBe(200)
+    expect(saved.data.profile.guardianContact).toBe('Parent: Ada Calder, 01632 960000')
+    expect(saved.data.derived.under18).toBe(true)
+    expect(saved.data.derived.hrMaxEstimate).toBeNull()
+    const { id } = await fixtures.assignment(team.teamId, young.userId, snapshot)
+    expect((await young.athlete.get<{ athlete: { under18: boolean } }>(`/api/assignments/${id}/plan`)).data.athlete.under18).toBe(true)
+    // An adult gets the Tanaka (2001) estimate, 208 − 0.7 × age: at 40, 180 bpm.
+    const adult = await athlete.athlete.patch<{ derived: { under18: boolean, hrMaxEstimate: number | null } }>('/api/me/profile', { birthYear: new Date().getUTCFullYear() - 40 })
+    expect(adult.data.derived.under18).toBe(false)
+    expect(adult.data.derived.hrMaxEstimate).toBe(180)
+  })
+})
