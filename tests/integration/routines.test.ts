@@ -276,7 +276,11 @@ describe('routines: preview for an athlete', () => {
     expect(runSegment.estimated).toBe(false)
 
     const matched = preview.cautions.filter(caution => caution.matchedAreas.length > 0)
-    expect(matched).toEqual([expect.objectContaining({ exerciseId: calf, text: 'Lower slowly', matchedAreas: ['achilles'] })])
+    // The hill steps carry their own uphill caution (Achilles, calf), which the Achilles note matches too.
+    expect(matched).toEqual([
+      expect.objectContaining({ exerciseId: calf, text: 'Lower slowly', matchedAreas: ['achilles'] }),
+      expect.objectContaining({ source: 'step', exerciseId: null, exerciseName: 'Uphill efforts', matchedAreas: ['achilles'] }),
+    ])
     expect(preview.cautions[0]!.text).toBe('Lower slowly')
     // The knee note is resolved, so the knee caution is listed but not highlighted.
     expect(preview.cautions.find(caution => caution.exerciseId === hill)!.matchedAreas).toEqual([])
@@ -287,7 +291,7 @@ describe('routines: preview for an athlete', () => {
   it('says what is missing without a benchmark, and refuses athletes outside the team', async () => {
     const { coach } = await registerCoach(stack)
     const { userId } = await addAthlete(stack, coach)
-    const other = await registerCoach(stack, 'Cold Tor Harriers')
+    const other = await registerCoach(stack, 'Varrow Edge Harriers')
     const { userId: outsider } = await addAthlete(stack, other.coach)
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Hills', category: 'hills', steps: hillSteps() })
     const preview = await coach.get<RoutinePreview>(`/api/routines/${id}/preview?athleteId=${userId}`)
