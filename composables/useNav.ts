@@ -1,11 +1,16 @@
+import { plural } from '#shared/utils/vocabulary'
+
 export interface NavLink {
   to: string
   label: string
+  /** A count shown beside the label, with words for screen readers. */
+  badge?: { count: number, label: string }
 }
 
 /** The main navigation for the signed-in role. */
 export function useNav() {
   const { session, loggedIn } = useUserSession()
+  const openPainFlags = useOpenPainFlagCount()
   const links = computed<NavLink[]>(() => {
     if (!loggedIn.value) return []
     const role = session.value?.role
@@ -15,7 +20,7 @@ export function useNav() {
         { to: '/exercises', label: 'Library' },
         { to: '/routines', label: 'Routines' },
         { to: '/planner', label: 'Planner' },
-        { to: '/insights', label: 'Insights' },
+        { to: '/insights', label: 'Insights', badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
         { to: '/team', label: 'Team' },
       ]
     }

@@ -1,4 +1,4 @@
-import type { ShownStatus } from '#shared/utils/assignment-status'
+import type { ShownStatus } from '#shared/utils/vocabulary'
 import { formatDay } from '#shared/utils/dates'
 
 export interface PlannedAssignment {

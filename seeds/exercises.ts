@@ -124,6 +124,17 @@ export const starterExercises: StarterExercise[] = [
     clip: { motion: 'climb', background: '#1f4d3a', marker: '#e37842' },
   },
   {
+    name: 'One-minute hill climbs',
+    category: 'hill',
+    summary: 'About a minute uphill at a strong, even effort (around 5K effort) on a steady 5–8 % grade, jogging or walking back down. Builds leg strength and economy with less pounding than flat speed work.',
+    cues: ['Shorter, quicker steps than on the flat', 'Drive the arms; stay tall from the ankles', 'Even effort to the top, not a sprint', 'Jog or walk back down gently'],
+    equipment: ['Hill'],
+    cautions: [
+      { text: 'Ease off if the Achilles or calves tighten rather than tire; a gentler grade eases them.', bodyAreas: ['achilles', 'calf'] },
+      { text: 'Keep the descents slow: running downhill loads the knees and shins.', bodyAreas: ['knee', 'shin'] },
+    ],
+  },
+  {
     name: 'Long hill repeats',
     category: 'hill',
     summary: 'Two to four minutes uphill at about 5K to 10K effort, jogging back down. Strength endurance for the climbs in a race.',
@@ -193,11 +204,15 @@ export const starterExercises: StarterExercise[] = [
   },
   {
     name: 'Straight-leg bounds',
-    category: 'drill',
+    // A bound is a jump in all but name: filed with the jumps so the plyometric cautions come with it.
+    category: 'plyometric',
     summary: 'Moving forward with nearly straight legs, pulling the ground back under the body. Builds hamstring and hip extension strength.',
     cues: ['Legs long, slight bend at the knee', 'Pull each foot back under the hip', 'Land on the ball of the foot', 'Short, quick contacts'],
     equipment: [],
-    cautions: [{ text: 'Very demanding on the hamstrings: introduce over several weeks.', bodyAreas: ['hamstring'] }],
+    cautions: [
+      { text: 'Very demanding on the hamstrings: introduce over several weeks.', bodyAreas: ['hamstring'] },
+      { text: 'Each contact is a landing: keep the set short and stop when contacts get heavy.', bodyAreas: ['achilles', 'knee', 'foot'] },
+    ],
   },
   {
     name: 'Carioca',

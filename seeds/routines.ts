@@ -26,7 +26,7 @@ const templates: Template[] = [
     category: 'hills',
     description: 'Eight one-minute climbs at about 5K effort on a steady 5–8 % road or trail, jogging back down between them. Builds leg strength and running economy with less pounding than flat speed work.',
     needs: [],
-    uses: ['Short hill sprints'],
+    uses: ['One-minute hill climbs'],
     steps: exercise => [
       { id: 'warm', type: 'block', kind: 'warmup', measure: { by: 'time', seconds: 15 * 60 }, target: easy, note: 'Easy running to the foot of the hill, with a few leg swings at the end.' },
       {
@@ -35,7 +35,7 @@ const templates: Template[] = [
         times: 8,
         skipLastRecovery: true,
         steps: [
-          { id: 'up', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 }, target: { type: 'pace', zone: 'fiveK' }, grade: 0.06, exerciseId: exercise('Short hill sprints'), note: 'Run tall, drive the arms, keep the effort even to the top.' },
+          { id: 'up', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 }, target: { type: 'pace', zone: 'fiveK' }, grade: 0.06, exerciseId: exercise('One-minute hill climbs'), note: 'Run tall, drive the arms, keep the effort even to the top.' },
           { id: 'down', type: 'block', kind: 'recovery', measure: { by: 'time', seconds: 90 }, note: 'Jog or walk back down gently; the descent is the recovery.' },
         ],
       },
@@ -80,7 +80,7 @@ const templates: Template[] = [
     needs: [],
     uses: ['Strides'],
     steps: exercise => [
-      { id: 'run', type: 'block', kind: 'warmup', measure: { by: 'time', seconds: 30 * 60 }, target: easy, note: 'Conversational pace the whole way.' },
+      { id: 'run', type: 'block', kind: 'work', measure: { by: 'time', seconds: 30 * 60 }, target: easy, note: 'The easy run itself: conversational pace the whole way.' },
       {
         id: 'strides',
         type: 'repeat',

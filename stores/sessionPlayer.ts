@@ -8,7 +8,8 @@ import { useSessionOutboxStore } from './sessionOutbox'
 export interface PlayerPlan {
   clipExerciseIds: number[]
   assignment: { id: number, date: string, note: string, status: string, routineId: number }
-  athlete: { name: string, units: 'km' | 'mi', hasBenchmark: boolean, activeInjuries: { id: number, bodyArea: string, note: string }[] }
+  athlete: { name: string, units: 'km' | 'mi', hasBenchmark: boolean, under18?: boolean, activeInjuries: { id: number, bodyArea: string, note: string }[] }
+  team?: { emergencyNumber: string | null }
   plan: SessionPlan
   sessions: { id: number, finishedAt: string | null, day: string }[]
 }

@@ -16,7 +16,9 @@ export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> 
     const file = url.slice('file:'.length)
     mkdirSync(dirname(resolve(file)), { recursive: true })
   }
-  const client = createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN })
+  // The client keeps a pool of connections (a transaction holds its own), and a PRAGMA reaches only
+  // one of them: the busy timeout goes in the config so every pooled connection waits for a lock.
+  const client = createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN, timeout: 5000 })
   if (url.startsWith('file:')) {
     await client.execute('PRAGMA journal_mode = WAL')
     await client.execute('PRAGMA busy_timeout = 5000')

@@ -2,20 +2,21 @@ import { relations, sql } from 'drizzle-orm'
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import type { RoutineStep } from '../../shared/utils/timeline'
 import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
+import { assignmentStatuses, exerciseCategories, injuryStatuses, invitableRoles, painFlagReasons, painFlagStatuses, roles, routineCategories } from '../../shared/utils/vocabulary'
 
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
   updatedAt: integer('updated_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`).$onUpdate(() => new Date()),
 }
 
-export const roles = ['head_coach', 'coach', 'athlete'] as const
-export const exerciseCategories = ['strength', 'hill', 'drill', 'stride', 'mobility', 'plyometric'] as const
-export const routineCategories = ['strength', 'hills', 'drills', 'mixed'] as const
-export const assignmentStatuses = ['planned', 'done', 'partial', 'skipped'] as const
+// The enums come from the one vocabulary in shared/utils/vocabulary.ts.
+export { assignmentStatuses, exerciseCategories, roles, routineCategories }
 
 export const teams = sqliteTable('teams', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   name: text('name').notNull(),
+  // Shown in the urgent-help guidance; never a built-in default, since the number depends on the country.
+  emergencyNumber: text('emergency_number'),
   ...timestamps,
 })
 
@@ -34,6 +35,8 @@ export const memberships = sqliteTable('memberships', {
   teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
   userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
   role: text('role', { enum: roles }).notNull(),
+  /** Coaches get an e-mail for each new pain flag unless they turn it off. */
+  painFlagEmails: integer('pain_flag_emails', { mode: 'boolean' }).notNull().default(true),
   ...timestamps,
 }, t => [
   uniqueIndex('memberships_team_user_unique').on(t.teamId, t.userId),
@@ -69,6 +72,8 @@ export const athleteProfiles = sqliteTable('athlete_profiles', {
   hrRest: integer('hr_rest'),
   units: text('units', { enum: ['km', 'mi'] }).notNull().default('km'),
   goal: text('goal').notNull().default(''),
+  /** A parent or guardian to reach, asked of athletes under 18. */
+  guardianContact: text('guardian_contact').notNull().default(''),
   ...timestamps,
 }, t => [index('athlete_profiles_team_idx').on(t.teamId)])
 
@@ -77,7 +82,7 @@ export const injuryNotes = sqliteTable('injury_notes', {
   teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
   athleteId: integer('athlete_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
   bodyArea: text('body_area').notNull(),
-  status: text('status', { enum: ['active', 'resolved'] }).notNull().default('active'),
+  status: text('status', { enum: injuryStatuses }).notNull().default('active'),
   note: text('note').notNull().default(''),
   since: text('since'),
   ...timestamps,
@@ -90,7 +95,7 @@ export const invites = sqliteTable('invites', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
   email: text('email').notNull(),
-  role: text('role', { enum: ['coach', 'athlete'] }).notNull(),
+  role: text('role', { enum: invitableRoles }).notNull(),
   squadId: integer('squad_id').references(() => squads.id, { onDelete: 'set null' }),
   tokenHash: text('token_hash').notNull(),
   invitedById: integer('invited_by_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
@@ -283,6 +288,8 @@ export const sessionLogs = sqliteTable('session_logs', {
   load: real('load'),
   pain: integer('pain'),
   painArea: text('pain_area'),
+  /** The athlete said the pain came on suddenly or is sharp. */
+  painSudden: integer('pain_sudden', { mode: 'boolean' }).notNull().default(false),
   note: text('note').notNull().default(''),
   ...timestamps,
 }, t => [
@@ -324,8 +331,9 @@ export const painFlags = sqliteTable('pain_flags', {
   sessionId: integer('session_id').notNull().references(() => sessionLogs.id, { onDelete: 'cascade' }),
   pain: integer('pain').notNull(),
   area: text('area'),
-  reason: text('reason', { enum: ['high_pain', 'new_area'] }).notNull(),
-  status: text('status', { enum: ['open', 'acknowledged'] }).notNull().default('open'),
+  reason: text('reason', { enum: painFlagReasons }).notNull(),
+  sudden: integer('sudden', { mode: 'boolean' }).notNull().default(false),
+  status: text('status', { enum: painFlagStatuses }).notNull().default('open'),
   reply: text('reply'),
   acknowledgedById: integer('acknowledged_by_id').references(() => users.id, { onDelete: 'set null' }),
   acknowledgedAt: integer('acknowledged_at', { mode: 'timestamp_ms' }),

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { and, eq } from 'drizzle-orm'
-import type { Role } from '../../shared/types/domain'
+import type { Role } from '../../shared/utils/vocabulary'
 import { memberships, teams, users } from '../db/schema'
 
 const rank: Record<Role, number> = { athlete: 0, coach: 1, head_coach: 2 }

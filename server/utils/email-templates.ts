@@ -1,5 +1,6 @@
 // Plain-text and simple HTML bodies for every message the app sends, in our own words.
 import { formatDay, isCalendarDay } from '../../shared/utils/dates'
+import { bodyAreaLabel, painFlagReasonLabels, plural, type PainFlagReason } from '../../shared/utils/vocabulary'
 
 export interface RenderedEmail {
   subject: string
@@ -46,15 +47,33 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
     const note = str(payload, 'note')
     const url = str(payload, 'url')
     const dates = (Array.isArray(payload.dates) ? payload.dates : []).map(day => calendarDay(String(day)))
-    const count = dates.length === 1 ? 'one session' : `${dates.length} sessions`
+    const count = plural(dates.length, 'session')
     const intro = `Hello ${str(payload, 'athleteName')}, ${coach} has planned ${count} of "${title}" for you with ${str(payload, 'teamName')}:`
     const closing = 'Open Switchback on the day for the steps, timings and cautions. You can turn these e-mails off on your Today page.'
     const list = dates.map(day => `- ${day}`).join('\n')
     const noteText = note ? `\n\nNote from your coach:\n${note}` : ''
     return {
-      subject: `New training: ${title} (${count})`,
+      subject: `Planned for you: ${title} (${count})`,
       text: `${intro}\n\n${list}${noteText}\n\n${closing}\n\n${url}`,
-      html: layout(`New training: ${title}`, [intro, ...dates, ...(note ? [`Note from your coach: ${note}`] : []), closing], { url, label: 'See your plan' }),
+      html: layout(`Planned for you: ${title}`, [intro, ...dates, ...(note ? [`Note from your coach: ${note}`] : []), closing], { url, label: 'See your plan' }),
+    }
+  },
+  pain_flag_raised(payload) {
+    const athlete = str(payload, 'athleteName')
+    const area = bodyAreaLabel(str(payload, 'area'))
+    const reason = painFlagReasonLabels[str(payload, 'reason') as PainFlagReason] ?? 'Pain reported'
+    const url = str(payload, 'url')
+    const where = area ? ` (${area.toLowerCase()})` : ''
+    const lines = [
+      `Hello ${str(payload, 'coachName')}, ${athlete} just finished "${str(payload, 'routineTitle')}" and reported pain of ${str(payload, 'pain')} out of 10${where}.`,
+      `Why you are told: ${reason.toLowerCase()}${payload.sudden ? '; the athlete said it came on suddenly or is sharp' : ''}.`,
+      'Open the report to reply; the athlete sees your reply on their progress page. If the athlete may need medical help, say so plainly: Switchback does not replace a clinician.',
+      'You can turn these e-mails off on the Team page.',
+    ]
+    return {
+      subject: `Pain report: ${athlete}, ${str(payload, 'pain')}/10${where}`,
+      text: `${lines.join('\n\n')}\n\n${url}`,
+      html: layout(`${athlete} reported pain`, lines, { url, label: 'Open the pain report' }),
     }
   },
   password_reset(payload) {
@@ -71,7 +90,7 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
   },
   pain_flag_reply(payload) {
     const coach = str(payload, 'coachName')
-    const area = str(payload, 'area').replace('_', ' ')
+    const area = bodyAreaLabel(str(payload, 'area')).toLowerCase()
     const url = str(payload, 'url')
     const lines = [
       `${coach} read the pain you reported${area ? ` (${area}, ${str(payload, 'pain')}/10)` : ''} and replied:`,

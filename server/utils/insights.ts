@@ -1,3 +1,4 @@
+import type { PainFlagReason } from '../../shared/utils/vocabulary'
 import { and, asc, between, desc, eq, gte, inArray, isNotNull, lte, sql } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, entryLogs, exercises, memberships, painFlags, sessionLogs, squadMembers, squads, users } from '../db/schema'
@@ -270,7 +271,8 @@ export interface PainFlagView {
   note: string
   pain: number
   area: string | null
-  reason: 'high_pain' | 'new_area'
+  reason: PainFlagReason
+  sudden: boolean
   status: 'open' | 'acknowledged'
   reply: string | null
   acknowledgedBy: string | null
@@ -290,6 +292,7 @@ export async function listPainFlags(db: Database, teamId: number, options: { id?
     pain: painFlags.pain,
     area: painFlags.area,
     reason: painFlags.reason,
+    sudden: painFlags.sudden,
     status: painFlags.status,
     reply: painFlags.reply,
     acknowledgedBy: sql<string | null>`(select ${users.name} from ${users} where ${users.id} = ${painFlags.acknowledgedById})`,

@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, gte, inArray, lte } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, entryLogs, sessionLogs } from '../db/schema'
+import { stepNamesById } from '../../shared/utils/routine-text'
 
 /** One athlete's sessions with their entries, newest first, optionally between two days. */
 export async function loadLogbook(db: Database, teamId: number, athleteId: number, range: { from?: string, to?: string }, limit = 200) {
@@ -19,6 +20,7 @@ export async function loadLogbook(db: Database, teamId: number, athleteId: numbe
     : []
   return sessions.map(({ session, snapshot, date, status }) => {
     const names = new Map(snapshot.exercises.map(exercise => [exercise.id, exercise.name]))
+    const stepNames = stepNamesById(snapshot.steps, id => names.get(id))
     return {
       ...sessionView(session),
       routine: { title: snapshot.title, category: snapshot.category },
@@ -26,6 +28,8 @@ export async function loadLogbook(db: Database, teamId: number, athleteId: numbe
       entries: entries.filter(entry => entry.sessionId === session.id).map(entry => ({
         ...entryView(entry),
         exerciseName: entry.exerciseId ? (names.get(entry.exerciseId) ?? null) : null,
+        /** What the athlete saw for the step: the exercise or the kind of step, never the step id. */
+        label: (entry.exerciseId ? names.get(entry.exerciseId) : undefined) ?? stepNames.get(entry.stepId) ?? 'A step',
       })),
     }
   })

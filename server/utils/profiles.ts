@@ -3,6 +3,7 @@ import { and, asc, desc, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { athleteProfiles, injuryNotes } from '../db/schema'
 import type { ProfilePatch } from '../../shared/schemas/profile'
+import { isUnder18 } from '../../shared/utils/age'
 import { hrMaxTanaka } from '../../shared/utils/heart'
 import { trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
 
@@ -14,7 +15,9 @@ export async function loadProfileView(db: Database, teamId: number, athlete: { i
       .orderBy(asc(injuryNotes.status), desc(injuryNotes.createdAt)),
   ])
   const age = profile?.birthYear ? new Date().getUTCFullYear() - profile.birthYear : null
-  const hrMaxEstimate = age && age >= 8 && age <= 100 ? Math.round(hrMaxTanaka(age)) : null
+  const under18 = isUnder18(profile?.birthYear)
+  // Published age formulas were fitted on adults: no age-based estimate for athletes under 18.
+  const hrMaxEstimate = age && !under18 && age <= 100 ? Math.round(hrMaxTanaka(age)) : null
   let paces: TrainingPaces | null = null
   if (profile?.benchmarkDistanceM && profile.benchmarkTimeS) {
     try {
@@ -36,9 +39,11 @@ export async function loadProfileView(db: Database, teamId: number, athlete: { i
       hrRest: profile?.hrRest ?? null,
       units: profile?.units ?? 'km',
       goal: profile?.goal ?? '',
+      guardianContact: profile?.guardianContact ?? '',
     },
     derived: {
       age,
+      under18,
       /** Tanaka, Monahan & Seals (2001): 208 − 0.7 × age. */
       hrMaxEstimate,
       hrMax: profile?.hrMax ?? hrMaxEstimate,

@@ -1,3 +1,4 @@
+import { invitableRoles } from '../utils/vocabulary'
 import { z } from 'zod'
 import { emailSchema, passwordSchema, personNameSchema } from './common'
 
@@ -15,7 +16,7 @@ export const loginSchema = z.object({
 
 export const inviteSchema = z.object({
   email: emailSchema,
-  role: z.enum(['athlete', 'coach'], { error: 'Role must be athlete or coach' }),
+  role: z.enum(invitableRoles, { error: 'Role must be athlete or coach' }),
   squadId: z.number().int().positive().optional(),
 })
 

@@ -1,19 +1,9 @@
 import { z } from 'zod'
-import { bodyAreas } from '../types/domain'
+import { bodyAreas, exerciseCategories, exerciseCategoryLabels, type ExerciseCategory } from '../utils/vocabulary'
 
 // One set of rules for the exercise form and the exercise routes.
 
-export const exerciseCategories = ['strength', 'hill', 'drill', 'stride', 'mobility', 'plyometric'] as const
-export type ExerciseCategory = typeof exerciseCategories[number]
-
-export const exerciseCategoryLabels: Record<ExerciseCategory, string> = {
-  strength: 'Strength',
-  hill: 'Hill',
-  drill: 'Drill',
-  stride: 'Strides',
-  mobility: 'Mobility',
-  plyometric: 'Plyometric',
-}
+export { exerciseCategories, exerciseCategoryLabels, type ExerciseCategory }
 
 export const EXERCISE_LIMITS = {
   name: 120,
@@ -56,7 +46,7 @@ export const exerciseCautionSchema = z.object({
 
 const exerciseFields = {
   name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(EXERCISE_LIMITS.name, `Name is at most ${EXERCISE_LIMITS.name} characters`),
-  category: z.enum(exerciseCategories, { error: 'Pick a category: strength, hill, drill, stride, mobility or plyometric' }),
+  category: z.enum(exerciseCategories, { error: `Pick a category: ${exerciseCategories.map(key => exerciseCategoryLabels[key]).join(', ')}` }),
   summary: z.string({ error: 'Summary is text' }).trim().max(EXERCISE_LIMITS.summary, `Summary is at most ${EXERCISE_LIMITS.summary} characters`),
   cues: z.array(cueSchema, { error: 'Cues are a list' }).max(EXERCISE_LIMITS.cues, `At most ${EXERCISE_LIMITS.cues} cues`),
   equipment: z.array(equipmentItemSchema, { error: 'Equipment is a list' })

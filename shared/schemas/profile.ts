@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { bodyAreas } from '../types/domain'
+import { bodyAreas, injuryStatuses } from '../utils/vocabulary'
 import { isoDateSchema } from './common'
 
 const thisYear = new Date().getUTCFullYear()
@@ -13,20 +13,22 @@ export const profilePatchSchema = z.object({
   hrRest: z.number({ error: 'Resting HR must be a number' }).int('Whole beats per minute').min(25, 'Resting HR is at least 25 bpm').max(120, 'Resting HR is at most 120 bpm').nullable().optional(),
   units: z.enum(['km', 'mi'], { error: 'Pick km or mi' }).optional(),
   goal: z.string().trim().max(200, 'Goals are at most 200 characters').optional(),
+  /** A parent or guardian to reach: name and phone or e-mail, asked of athletes under 18. */
+  guardianContact: z.string({ error: 'Write the contact as text' }).trim().max(200, 'At most 200 characters').optional(),
 }).refine(value => value.hrMax == null || value.hrRest == null || value.hrRest < value.hrMax, { message: 'Resting HR must be below HRmax', path: ['hrRest'] })
 
 export const injuryNoteSchema = z.object({
   bodyArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }),
   note: z.string().trim().max(500, 'Notes are at most 500 characters').default(''),
   since: isoDateSchema.nullable().optional(),
-  status: z.enum(['active', 'resolved']).default('active'),
+  status: z.enum(injuryStatuses).default('active'),
 })
 
 export const injuryNotePatchSchema = z.object({
   bodyArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }).optional(),
   note: z.string().trim().max(500, 'Notes are at most 500 characters').optional(),
   since: isoDateSchema.nullable().optional(),
-  status: z.enum(['active', 'resolved'], { error: 'Status is active or resolved' }).optional(),
+  status: z.enum(injuryStatuses, { error: 'Status is active or resolved' }).optional(),
 })
 
 export type ProfilePatch = z.infer<typeof profilePatchSchema>
@@ -44,4 +46,5 @@ export const profileFormSchema = z.object({
   hrRest: optionalNumberText('Resting HR').refine(value => value === '' || (Number(value) >= 25 && Number(value) <= 120), 'Resting HR is between 25 and 120 bpm'),
   units: z.enum(['km', 'mi']),
   goal: z.string().trim().max(200, 'Goals are at most 200 characters'),
+  guardianContact: z.string().trim().max(200, 'At most 200 characters'),
 }).refine(value => (value.benchmarkDistanceM === '') === (value.benchmarkTime === ''), { message: 'Give both the distance and the time of the race', path: ['benchmarkTime'] })

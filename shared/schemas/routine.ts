@@ -1,15 +1,8 @@
 import { z } from 'zod'
 import { routineStepsSchema } from '../utils/timeline'
+import { routineCategories, routineCategoryLabels, type RoutineCategory } from '../utils/vocabulary'
 
-export const routineCategories = ['strength', 'hills', 'drills', 'mixed'] as const
-export type RoutineCategory = typeof routineCategories[number]
-
-export const routineCategoryLabels: Record<RoutineCategory, string> = {
-  strength: 'Gym and strength',
-  hills: 'Hills',
-  drills: 'Drills and strides',
-  mixed: 'Mixed',
-}
+export { routineCategories, routineCategoryLabels, type RoutineCategory }
 
 export const routineMetaSchema = z.object({
   title: z.string({ error: 'Give the routine a title' }).trim().min(1, 'Give the routine a title').max(120, 'Titles are at most 120 characters'),

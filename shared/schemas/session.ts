@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { bodyAreas } from '../types/domain'
+import { bodyAreas, effortScale, painScale } from '../utils/vocabulary'
 import { isoDateSchema } from './common'
 
 export const MAX_REPS = 1000
@@ -38,6 +38,8 @@ export const finishSessionSchema = z.object({
   sessionRpe: rpe,
   pain: z.number({ error: 'Pain must be a number' }).int('Pain is a whole number from 0 to 10').min(0, 'Pain runs from 0 to 10').max(10, 'Pain runs from 0 to 10').optional(),
   painArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }).optional(),
+  /** The pain came on suddenly or is sharp: shows the urgent guidance whatever the score. */
+  sudden: z.boolean({ error: 'Say yes or no' }).optional(),
   note: z.string().trim().max(2000, 'Notes are at most 2,000 characters').optional(),
   /** Active time without pauses, as the player measured it. */
   durationS: z.number().min(0, 'Time cannot be negative').max(MAX_SECONDS, 'A session cannot be longer than a day').optional(),
@@ -51,25 +53,9 @@ export const logbookQuerySchema = z.object({
 export type EntryInput = z.infer<typeof entrySchema>
 export type FinishInput = z.infer<typeof finishSessionSchema>
 
-/** Our own words for the main points of the 0–10 effort scale. */
-export const effortAnchors: Record<number, string> = {
-  0: 'Sitting still',
-  1: 'Barely moving',
-  3: 'Chatty and comfortable',
-  5: 'Breathing harder, focused',
-  7: 'Short sentences only',
-  9: 'Close to my limit',
-  10: 'Nothing left',
-}
-
-export const painAnchors: Record<number, string> = {
-  0: 'No pain',
-  2: 'Aware of it',
-  4: 'Bothers me',
-  6: 'Changes how I move',
-  8: 'Hard to carry on',
-  10: 'Worst I can imagine',
-}
+/** The one effort scale (shared/utils/vocabulary.ts), by point 0–10. */
+export const effortAnchors: readonly string[] = effortScale
+export const painAnchors: Record<number, string> = painScale
 
 /** Pain at or above this raises a flag for the coach. */
 export const PAIN_FLAG_THRESHOLD = 4

@@ -1,12 +1,7 @@
 import type { RoutineStep } from '../utils/timeline'
+import type { BodyArea } from '../utils/vocabulary'
 
-export const bodyAreas = ['achilles', 'calf', 'knee', 'hip', 'lower_back', 'hamstring', 'quad', 'shin', 'foot', 'ankle', 'glute', 'groin', 'shoulder', 'neck'] as const
-export type BodyArea = typeof bodyAreas[number]
-
-export const bodyAreaLabels: Record<BodyArea, string> = {
-  achilles: 'Achilles', calf: 'Calf', knee: 'Knee', hip: 'Hip', lower_back: 'Lower back', hamstring: 'Hamstring',
-  quad: 'Quadriceps', shin: 'Shin', foot: 'Foot', ankle: 'Ankle', glute: 'Glute', groin: 'Groin', shoulder: 'Shoulder', neck: 'Neck',
-}
+// Body areas, roles and the other enums live in the one vocabulary: shared/utils/vocabulary.ts.
 
 export interface ExerciseCaution {
   text: string
@@ -31,6 +26,3 @@ export interface AssignmentSnapshot {
   steps: RoutineStep[]
   exercises: SnapshotExercise[]
 }
-
-export type Role = 'head_coach' | 'coach' | 'athlete'
-export const roleLabels: Record<Role, string> = { head_coach: 'Head coach', coach: 'Coach', athlete: 'Athlete' }

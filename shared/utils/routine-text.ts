@@ -1,15 +1,8 @@
-import type { BlockKind, Measure, PaceZone, RoutineStep, Target } from './timeline'
+import type { Measure, PaceZone, RoutineStep, Target } from './timeline'
 import { formatDuration } from './pace'
+import { blockKindLabels, effortWords, plural, stepTypeLabels } from './vocabulary'
 
 // Plain words for the parts of a step, shared by the builder, the preview and the print card.
-
-export const blockKindLabels: Record<BlockKind, string> = {
-  warmup: 'Warm-up',
-  work: 'Effort',
-  recovery: 'Recovery',
-  rest: 'Rest',
-  cooldown: 'Cool-down',
-}
 
 export const paceZoneLabels: Record<PaceZone, string> = {
   easy: 'Easy pace',
@@ -32,13 +25,13 @@ export function formatMeters(meters: number): string {
 export function describeMeasure(measure: Measure): string {
   if (measure.by === 'time') return formatSeconds(measure.seconds)
   if (measure.by === 'distance') return formatMeters(measure.meters)
-  return `${measure.reps} reps`
+  return plural(measure.reps, 'rep')
 }
 
 export function describeTarget(target: Target | undefined): string {
   if (!target) return ''
   if (target.type === 'pace') return paceZoneLabels[target.zone]
-  if (target.type === 'effort') return `RPE ${target.rpe}`
+  if (target.type === 'effort') return `effort ${target.rpe} of 10 (${effortWords(target.rpe).toLowerCase()})`
   if (target.type === 'load') return `${target.kg} kg`
   return `${target.percent} % of 1RM`
 }
@@ -50,7 +43,7 @@ export function formatGrade(grade: number): string {
 
 /** A one-line summary, e.g. "Effort · 60 s · 5K pace · +6 % grade" or "Split squat · 3 × 8 reps". */
 export function describeStep(step: RoutineStep, exerciseName?: (id: number) => string | undefined): string {
-  if (step.type === 'repeat') return `${step.times} × ${step.steps.length} step${step.steps.length === 1 ? '' : 's'}`
+  if (step.type === 'repeat') return `${plural(step.times, 'round')} of ${plural(step.steps.length, 'step')}`
   const name = step.exerciseId ? exerciseName?.(step.exerciseId) : undefined
   if (step.type === 'sets') {
     return [name ?? 'Sets', `${step.sets} × ${describeMeasure(step.perSet)}`, describeTarget(step.target)].filter(Boolean).join(' · ')
@@ -59,11 +52,11 @@ export function describeStep(step: RoutineStep, exerciseName?: (id: number) => s
     .filter(Boolean).join(' · ')
 }
 
-/** A short name for buttons and screen readers: "Warm-up", "Split squat sets", "Repeat 8 times". */
+/** A short name for buttons and screen readers: "Easy start", "Split squat sets", "8 rounds". */
 export function stepName(step: RoutineStep, exerciseName?: (id: number) => string | undefined): string {
-  if (step.type === 'repeat') return `Repeat ${step.times} times`
+  if (step.type === 'repeat') return plural(step.times, 'round')
   const name = step.exerciseId ? exerciseName?.(step.exerciseId) : undefined
-  if (step.type === 'sets') return `${name ?? 'Exercise'} sets`
+  if (step.type === 'sets') return name ? `${name} sets` : stepTypeLabels.sets
   return name ? `${blockKindLabels[step.kind]}: ${name}` : blockKindLabels[step.kind]
 }
 
@@ -71,10 +64,23 @@ export function stepName(step: RoutineStep, exerciseName?: (id: number) => strin
 export function describeStepDetails(step: RoutineStep): string {
   if (step.type === 'repeat') {
     const count = step.steps.length
-    return `${step.times} round${step.times === 1 ? '' : 's'} of ${count} step${count === 1 ? '' : 's'}${step.skipLastRecovery ? ', no recovery after the last' : ''}`
+    return `${plural(step.times, 'round')} of ${plural(count, 'step')}${step.skipLastRecovery ? ', ends on the last effort' : ''}`
   }
   if (step.type === 'sets') {
     return [`${step.sets} × ${describeMeasure(step.perSet)}`, `${formatSeconds(step.restSeconds)} rest`, describeTarget(step.target)].filter(Boolean).join(' · ')
   }
   return [describeMeasure(step.measure), describeTarget(step.target), step.grade ? formatGrade(step.grade) : ''].filter(Boolean).join(' · ')
+}
+
+/** The name of every step in a tree by its id, for screens that hold only a step id (the logbook). */
+export function stepNamesById(steps: readonly RoutineStep[], exerciseName?: (id: number) => string | undefined): Map<string, string> {
+  const names = new Map<string, string>()
+  const visit = (list: readonly RoutineStep[]) => {
+    for (const step of list) {
+      names.set(step.id, stepName(step, exerciseName))
+      if (step.type === 'repeat') visit(step.steps)
+    }
+  }
+  visit(steps)
+  return names
 }

@@ -1,4 +1,4 @@
-import { bodyAreaLabels, type BodyArea } from '../types/domain'
+import { bodyAreaLabel, effortWords, plural } from './vocabulary'
 import { formatPace, type PaceUnit } from './pace'
 import type { PlanSegment } from './session-plan'
 
@@ -20,7 +20,7 @@ export function minutesText(seconds: number) {
 
 /** How much of it: '8 reps', '200 m', '0:30'. */
 export function amountText(segment: PlanSegment, units: PaceUnit = 'km') {
-  if (segment.measure === 'reps') return `${segment.reps} reps`
+  if (segment.measure === 'reps') return plural(segment.reps ?? 0, 'rep')
   if (segment.measure === 'distance' && segment.meters) {
     return units === 'mi' && segment.meters >= 800 ? `${(segment.meters / 1609.344).toFixed(2)} mi` : `${segment.meters} m`
   }
@@ -37,7 +37,7 @@ export function targetText(segment: PlanSegment, units: PaceUnit = 'km') {
   if (segment.grade) parts.push(`${segment.grade > 0 ? 'uphill' : 'downhill'} ${Math.round(Math.abs(segment.grade) * 100)} %${segment.targetPaceSPerKm ? ', pace adjusted for the slope' : ''}`)
   if (segment.targetKg !== null) parts.push(segment.percent1rm ? `${segment.targetKg} kg (${segment.percent1rm} % of your 1RM)` : `${segment.targetKg} kg`)
   else if (segment.percent1rm) parts.push(`${segment.percent1rm} % of your 1RM — pick a load you can control`)
-  if (segment.targetRpe !== null) parts.push(`Effort ${segment.targetRpe} of 10`)
+  if (segment.targetRpe !== null) parts.push(`Effort ${segment.targetRpe} of 10: ${effortWords(segment.targetRpe).toLowerCase()}`)
   return parts.join(' · ')
 }
 
@@ -50,5 +50,5 @@ export function positionText(segment: PlanSegment) {
 }
 
 export function areaLabel(area: string | null | undefined) {
-  return area ? (bodyAreaLabels[area as BodyArea] ?? area) : ''
+  return bodyAreaLabel(area)
 }

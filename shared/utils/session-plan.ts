@@ -1,8 +1,9 @@
 import type { AssignmentSnapshot, SnapshotExercise } from '../types/domain'
-import { generalCautions, matchCautions, type InjuryNoteLike, type MatchedCaution } from './cautions'
+import { generalCautions, matchCautions, stepCautionsFor, type InjuryNoteLike, type MatchedCaution, type StepCautionKey } from './cautions'
 import type { TrainingPaces } from './pace'
 import { loadForPercent } from './strength'
-import { buildTimeline, type BlockKind, type Target, type TimelineSegment } from './timeline'
+import { buildTimeline, type Target, type TimelineSegment } from './timeline'
+import type { BlockKind } from './vocabulary'
 
 // What the player runs: the assignment's snapshot turned into one athlete's segments, with their
 // paces and loads filled in and the cautions that concern them.
@@ -38,7 +39,10 @@ export interface PlanSegment {
   note: string | null
   /** Work the athlete logs (sets and work intervals); warm-ups, rests and recoveries are not logged. */
   loggable: boolean
+  /** The exercise has cautions, or the step itself carries some (see stepCautions). */
   hasCautions: boolean
+  /** Cautions that follow from the step itself: a climb, a descent, a sprint, a jump, a heavy lift. */
+  stepCautions: StepCautionKey[]
 }
 
 export interface SessionPlan {
@@ -88,6 +92,7 @@ export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete):
     }
     const round = flatRound(segment)
     const measure = segment.measure
+    const stepCautions = isRest && segment.set ? [] : stepCautionsFor({ kind: segment.kind, grade: segment.grade, target, exerciseCategory: exercise?.category })
     return {
       index,
       key: `${segment.stepId}:${round ?? 0}:${segment.set ?? 0}${segment.kind === 'work' ? '' : `:${segment.kind}`}`,
@@ -115,14 +120,15 @@ export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete):
       percent1rm: percent,
       note: segment.note ?? null,
       loggable: segment.kind === 'work',
-      hasCautions: Boolean(exercise?.cautions.length),
+      hasCautions: Boolean(exercise?.cautions.length) || stepCautions.length > 0,
+      stepCautions,
     }
   })
 
   const used = snapshot.exercises.filter(exercise => segments.some(segment => segment.exerciseId === exercise.id))
   const categories = [snapshot.category, ...used.map(exercise => exercise.category)]
   const equipment = [...new Set(used.flatMap(exercise => exercise.equipment))].sort((a, b) => a.localeCompare(b))
-  const injuryCautions = matchCautions(used, athlete.injuryNotes).filter(caution => caution.matchedAreas.length > 0)
+  const injuryCautions = matchCautions(used, athlete.injuryNotes, snapshot.steps).filter(caution => caution.matchedAreas.length > 0)
   return {
     title: snapshot.title,
     category: snapshot.category,

@@ -25,7 +25,8 @@ export function e1rmBrzycki(kg: number, reps: number): number {
 /** The load for a percentage (80 for 80 %) of an estimated 1RM, rounded to the nearest plate step (0 for no rounding). */
 export function loadForPercent(e1rmKg: number, percent: number, roundToKg = 2.5): number {
   checkNumber('Estimated 1RM (kg)', e1rmKg, 0, MAX_KG, { exclusiveMin: true })
-  checkNumber('Percent of 1RM', percent, 0, 150, { exclusiveMin: true })
+  // Capped at 100: a load above the estimated one-rep max is never prescribed.
+  checkNumber('Percent of 1RM', percent, 0, 100, { exclusiveMin: true })
   checkNumber('Rounding step (kg)', roundToKg, 0, 50)
   const load = e1rmKg * percent / 100
   if (roundToKg === 0) {

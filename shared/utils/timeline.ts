@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { checkNumber } from './numbers'
 import { formatDuration, hillPaceForEffort } from './pace'
 import type { TrainingPaces } from './pace'
+import { blockKindLabels, blockKinds, type BlockKind } from './vocabulary'
 
 // The routine step tree. One schema serves the builder's forms and the server's checks.
 
@@ -16,10 +17,8 @@ export const MAX_SEGMENTS = 10_000
 export const DEFAULT_PACE_S_PER_KM = 360
 export const DEFAULT_SECONDS_PER_REP = 3
 
-export const blockKinds = ['warmup', 'work', 'recovery', 'rest', 'cooldown'] as const
 export const paceZones = ['easy', 'marathon', 'threshold', 'tenK', 'fiveK', 'mile'] as const
 
-export type BlockKind = typeof blockKinds[number]
 export type PaceZone = typeof paceZones[number]
 
 export const measureSchema = z.discriminatedUnion('by', [
@@ -32,7 +31,8 @@ export const targetSchema = z.discriminatedUnion('type', [
   z.object({ type: z.literal('pace'), zone: z.enum(paceZones) }),
   z.object({ type: z.literal('effort'), rpe: z.number().min(0, 'RPE runs from 0 to 10').max(10, 'RPE runs from 0 to 10') }),
   z.object({ type: z.literal('load'), kg: z.number().positive('Load must be more than 0 kg').max(500, 'Load must be at most 500 kg') }),
-  z.object({ type: z.literal('percent1rm'), percent: z.number().positive('Percent must be more than 0').max(110, 'Percent of 1RM must be at most 110') }),
+  // %1RM stops at 100: a target above the athlete's one-rep max is not a set anyone should be given.
+  z.object({ type: z.literal('percent1rm'), percent: z.number().positive('Percent must be more than 0').max(100, 'Percent of 1RM is at most 100') }),
 ])
 
 export type Measure = z.infer<typeof measureSchema>
@@ -198,14 +198,6 @@ export interface TimelineOptions {
 
 type DraftSegment = Omit<TimelineSegment, 'startS'>
 
-const kindLabels: Record<BlockKind, string> = {
-  warmup: 'Warm-up',
-  work: 'Work',
-  recovery: 'Recovery',
-  rest: 'Rest',
-  cooldown: 'Cool-down',
-}
-
 /** Flattens a step tree into timed segments in the order an athlete does them, with totals. */
 export function buildTimeline(steps: readonly RoutineStep[], options: TimelineOptions = {}): Timeline {
   if (!Array.isArray(steps)) {
@@ -258,7 +250,7 @@ function expandSteps(steps: readonly RoutineStep[], parentPath: (string | number
         stepId: step.id,
         path,
         kind: step.kind,
-        label: kindLabels[step.kind],
+        label: blockKindLabels[step.kind],
         measure: step.measure,
         ...timing(step.measure, step.target, step.grade, context),
         ...optional({ exerciseId: step.exerciseId, target: step.target, grade: step.grade, note: step.note }),

@@ -58,8 +58,8 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('insights at
     await page.getByRole('heading', { name: 'Insights', exact: true }).waitFor()
     await page.getByRole('heading', { name: 'Open pain flags (1)' }).waitFor()
     // This week's load jumped, so the ratio is marked with a word, not only a colour.
-    await page.getByText('above guide').first().waitFor()
-    expect(await page.getByText('commonly cited guide').isVisible()).toBe(true)
+    await page.getByText('above the cited range').first().waitFor()
+    expect(await page.getByText('not a safe zone').isVisible()).toBe(true)
     await page.screenshot({ path: screenshotPath(`insights-team-${size}`), fullPage: true })
 
     await page.getByRole('row', { name: /Ffion Aske/ }).getByRole('link', { name: 'Ffion Aske' }).click()

@@ -63,14 +63,14 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await page.getByRole('heading', { name: 'New routine' }).waitFor()
 
     await page.getByLabel('Title').fill('Ridge Lane hill reps')
-    await page.getByRole('button', { name: '+ Warm-up' }).click()
+    await page.getByRole('button', { name: '+ Easy start' }).click()
     await expect.poll(() => totalTime(page)).toBe('10:00')
     // The cool-down goes in before the repeat on purpose: it is dragged into place below.
-    await page.getByRole('button', { name: '+ Cool-down' }).click()
-    await page.getByRole('button', { name: '+ Repeat', exact: true }).click()
+    await page.getByRole('button', { name: '+ Easy finish' }).click()
+    await page.getByRole('button', { name: '+ Rounds', exact: true }).click()
     await expect.poll(() => totalTime(page)).toBe('30:00')
 
-    const repeat = page.locator('article[aria-label^="Repeat"]')
+    const repeat = page.locator('article[aria-label$=" rounds"]')
     await repeat.getByLabel('Times', { exact: true }).fill('8')
     await expect.poll(() => totalTime(page)).toBe('40:00')
     // Undo and redo from the keyboard.
@@ -80,7 +80,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await expect.poll(() => totalTime(page)).toBe('40:00')
 
     // Inside the repeat: 60 s uphill at 5K effort, then 90 s jogging down.
-    const effort = repeat.locator('article[aria-label^="Effort"]')
+    const effort = repeat.locator('article[aria-label^="Main effort"]')
     await effort.locator('button[aria-expanded]').first().click()
     await effort.getByLabel('Target').selectOption('pace')
     await effort.getByLabel('Pace', { exact: true }).selectOption('fiveK')
@@ -91,7 +91,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await effort.getByTestId('exercise-clip').scrollIntoViewIfNeeded()
     await expect.poll(() => effort.getByTestId('exercise-clip').evaluate(video => (video as HTMLVideoElement).duration)).toBeGreaterThan(0)
     await effort.getByLabel('Note for the athlete').fill('Strong arms, even effort to the top')
-    const recovery = repeat.locator('article[aria-label="Recovery"]')
+    const recovery = repeat.locator('article[aria-label="Easy between efforts"]')
     await recovery.locator('button[aria-expanded]').first().click()
     await recovery.getByLabel('Note for the athlete').fill('Jog down gently')
     // Validation as you type: an impossible grade is flagged on the spot.
@@ -100,20 +100,20 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await effort.getByLabel('Hill grade').fill('6')
     await expect.poll(() => effort.getByText('Grade must be between').count()).toBe(0)
 
-    expect(await rootOrder(page)).toEqual(['Warm-up', 'Cool-down', 'Repeat 8 times'])
+    expect(await rootOrder(page)).toEqual(['Easy start', 'Easy finish', '8 rounds'])
     // Fold every card, as a coach does before rearranging, so the whole routine fits on screen.
     while (await page.locator('button[aria-expanded="true"]').count()) await page.locator('button[aria-expanded="true"]').first().click()
     await page.locator('ol[data-list-id="root"]').scrollIntoViewIfNeeded()
     if (size === 'desktop') {
       const grip = await repeat.locator('.step-handle').first().boundingBox()
-      const coolDown = await page.locator('ol[data-list-id="root"] > li > article[aria-label="Cool-down"]').boundingBox()
+      const coolDown = await page.locator('ol[data-list-id="root"] > li > article[aria-label="Easy finish"]').boundingBox()
       await drag(page, { x: grip!.x + grip!.width / 2, y: grip!.y + grip!.height / 2 }, { x: coolDown!.x + coolDown!.width / 2, y: coolDown!.y + coolDown!.height / 2 })
     }
     else {
       // On a phone the buttons do what the drag does.
-      await page.getByRole('button', { name: 'Move Repeat 8 times up' }).click()
+      await page.getByRole('button', { name: 'Move 8 rounds up' }).click()
     }
-    await expect.poll(() => rootOrder(page)).toEqual(['Warm-up', 'Repeat 8 times', 'Cool-down'])
+    await expect.poll(() => rootOrder(page)).toEqual(['Easy start', '8 rounds', 'Easy finish'])
     await expect.poll(() => totalTime(page)).toBe('40:00')
     await page.screenshot({ path: screenshotPath(`routine-builder-${size}`), fullPage: true })
 
@@ -133,14 +133,14 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
 
     await page.reload()
     await page.getByRole('heading', { name: 'Ridge Lane hill reps' }).waitFor()
-    await expect.poll(() => rootOrder(page)).toEqual(['Warm-up', 'Repeat 8 times', 'Cool-down'])
+    await expect.poll(() => rootOrder(page)).toEqual(['Easy start', '8 rounds', 'Easy finish'])
     expect(await totalTime(page)).toBe('40:00')
-    const saved = page.locator('article[aria-label^="Repeat"]')
+    const saved = page.locator('article[aria-label$=" rounds"]')
     const savedSteps = await saved.locator('ol > li > article').evaluateAll(cards => cards.map(card => card.textContent ?? ''))
     expect(savedSteps).toHaveLength(2)
-    expect(savedSteps[0]).toMatch(/Effort: Short hill sprints\s*1:00 · 5K pace · \+6 % grade/)
-    expect(savedSteps[1]).toMatch(/Recovery\s*1:30/)
-    await saved.locator('article[aria-label^="Effort"] button[aria-expanded]').first().click()
+    expect(savedSteps[0]).toMatch(/Main effort: Short hill sprints\s*1:00 · 5K pace · \+6 % grade/)
+    expect(savedSteps[1]).toMatch(/Easy between efforts\s*1:30/)
+    await saved.locator('article[aria-label^="Main effort"] button[aria-expanded]').first().click()
     expect(await saved.getByLabel('Note for the athlete').first().inputValue()).toBe('Strong arms, even effort to the top')
     expect(await page.getByTestId('save-status').textContent()).toMatch(/Saved/)
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(viewports[size].width)
@@ -166,7 +166,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
 
     await page.goto(`${stack.url}/routines`)
     await page.getByRole('link', { name: 'Ridge Lane hills, from the other tab', exact: true }).waitFor()
-    await page.getByLabel('Category').selectOption({ label: 'Gym and strength' })
+    await page.getByLabel('Category').selectOption({ label: 'Strength' })
     await page.getByText('No routine matches.').waitFor()
     await page.getByLabel('Category').selectOption({ label: 'Hills' })
     await page.getByLabel('Search').fill('other tab')

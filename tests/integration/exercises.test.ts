@@ -193,7 +193,7 @@ describe('exercise records', () => {
 describe('browsing the library', () => {
   let listCoach: ApiClient
   beforeAll(async () => {
-    listCoach = (await registerCoach(stack, 'Millpond Striders')).coach
+    listCoach = (await registerCoach(stack, 'Quenmere Striders')).coach
     const specs = [
       { name: 'Romanian deadlift', category: 'strength', equipment: ['Barbell'] },
       { name: 'Step-ups', category: 'strength', equipment: ['Box', 'Dumbbells'] },
@@ -390,7 +390,7 @@ describe('who may see what', () => {
   let otherCoach: ApiClient
   let exercise: Exercise
   beforeAll(async () => {
-    otherCoach = (await registerCoach(stack, 'Cold Tor Fell Club')).coach
+    otherCoach = (await registerCoach(stack, 'Varrow Edge Club')).coach
     exercise = await createExercise(coach, { name: 'Single-leg calf raise', category: 'strength' })
     await uploadClip(coach, exercise.id)
   })

@@ -90,15 +90,15 @@ describe('assigning a weekly series', () => {
     })
     expect(response.status).toBe(201)
     const [first, second] = team.athletes
-    const mail = await stack.mail.waitFor(first!.email, /New training/)
+    const mail = await stack.mail.waitFor(first!.email, /Planned for you/)
     await outboxSettled(db)
-    expect(stack.mail.to(first!.email).filter(message => /New training/.test(message.subject ?? ''))).toHaveLength(1)
-    expect(stack.mail.to(second!.email).filter(message => /New training/.test(message.subject ?? ''))).toHaveLength(1)
+    expect(stack.mail.to(first!.email).filter(message => /Planned for you/.test(message.subject ?? ''))).toHaveLength(1)
+    expect(stack.mail.to(second!.email).filter(message => /Planned for you/.test(message.subject ?? ''))).toHaveLength(1)
     expect(mail.subject).toContain('Ridge road hill reps')
     expect(mail.text).toContain('4 sessions')
     for (const day of ['Tue 23 Feb 2027', 'Fri 26 Feb 2027', 'Tue 2 Mar 2027', 'Fri 5 Mar 2027']) expect(mail.text).toContain(day)
     expect(mail.text).toContain('Only six reps this time.')
-    const secondMail = stack.mail.to(second!.email).find(message => /New training/.test(message.subject ?? ''))!
+    const secondMail = stack.mail.to(second!.email).find(message => /Planned for you/.test(message.subject ?? ''))!
     expect(secondMail.text).toContain('Bring gloves.')
     expect(secondMail.text).not.toContain('Only six reps')
 
@@ -118,9 +118,9 @@ describe('assigning a weekly series', () => {
     expect(bad.data.data?.fields?.notifyByEmail).toBeTruthy()
 
     expect((await team.coach.post('/api/assignments', { routineId: team.routineId, squadId: team.squadId, dates: ['2027-01-12'] })).status).toBe(201)
-    await stack.mail.waitFor(loud!.email, /New training/)
+    await stack.mail.waitFor(loud!.email, /Planned for you/)
     await outboxSettled(db)
-    expect(stack.mail.to(quiet!.email).filter(message => /New training/.test(message.subject ?? ''))).toHaveLength(0)
+    expect(stack.mail.to(quiet!.email).filter(message => /Planned for you/.test(message.subject ?? ''))).toHaveLength(0)
     const queued = await db.execute({ sql: 'select count(*) as n from email_outbox where "to" = ? and template = ?', args: [quiet!.email, 'assignments_created'] })
     expect(Number(queued.rows[0]!.n)).toBe(0)
   })
@@ -311,7 +311,7 @@ describe('moving and removing', () => {
     expect(synced.data).toMatchObject({ added: 1, created: 2, athleteIds: [newcomer.userId] })
     const theirs = await newcomer.athlete.get<Mine>('/api/me/assignments?from=2027-06-01&to=2027-06-30')
     expect(theirs.data.assignments.map(row => [row.date, row.title])).toEqual([['2027-06-09', 'Ridge road hill reps'], ['2027-06-16', 'Ridge road hill reps']])
-    await stack.mail.waitFor(newcomer.email, /New training/)
+    await stack.mail.waitFor(newcomer.email, /Planned for you/)
 
     const again = await team.coach.post<{ added: number }>(`/api/assignments/series/${created.data.seriesId}/sync-squad`)
     expect(again.data.added).toBe(0)

@@ -205,7 +205,7 @@ describe('routines: bad input', () => {
 describe('routines: who may do what', () => {
   it('hides other teams\' routines behind 404, keeps athletes out with 403 and strangers with 401', async () => {
     const owner = await registerCoach(stack)
-    const other = await registerCoach(stack, 'Millpond Striders')
+    const other = await registerCoach(stack, 'Quenmere Striders')
     const { athlete } = await addAthlete(stack, owner.coach)
     const { data: { id } } = await owner.coach.post<{ id: number }>('/api/routines', { title: 'Private hills', category: 'hills', steps: hillSteps() })
     const body = { title: 'Taken over', category: 'hills', description: '', steps: hillSteps(), version: 1 }
@@ -276,7 +276,11 @@ describe('routines: preview for an athlete', () => {
     expect(runSegment.estimated).toBe(false)
 
     const matched = preview.cautions.filter(caution => caution.matchedAreas.length > 0)
-    expect(matched).toEqual([expect.objectContaining({ exerciseId: calf, text: 'Lower slowly', matchedAreas: ['achilles'] })])
+    // The hill steps carry their own uphill caution (Achilles, calf), which the Achilles note matches too.
+    expect(matched).toEqual([
+      expect.objectContaining({ exerciseId: calf, text: 'Lower slowly', matchedAreas: ['achilles'] }),
+      expect.objectContaining({ source: 'step', exerciseId: null, exerciseName: 'Uphill efforts', matchedAreas: ['achilles'] }),
+    ])
     expect(preview.cautions[0]!.text).toBe('Lower slowly')
     // The knee note is resolved, so the knee caution is listed but not highlighted.
     expect(preview.cautions.find(caution => caution.exerciseId === hill)!.matchedAreas).toEqual([])
@@ -287,7 +291,7 @@ describe('routines: preview for an athlete', () => {
   it('says what is missing without a benchmark, and refuses athletes outside the team', async () => {
     const { coach } = await registerCoach(stack)
     const { userId } = await addAthlete(stack, coach)
-    const other = await registerCoach(stack, 'Cold Tor Harriers')
+    const other = await registerCoach(stack, 'Varrow Edge Harriers')
     const { userId: outsider } = await addAthlete(stack, other.coach)
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Hills', category: 'hills', steps: hillSteps() })
     const preview = await coach.get<RoutinePreview>(`/api/routines/${id}/preview?athleteId=${userId}`)

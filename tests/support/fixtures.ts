@@ -18,7 +18,8 @@ export interface ExerciseFixture {
 export class Fixtures {
   readonly client: Client
   constructor(stack: Stack) {
-    this.client = createClient({ url: stack.databaseUrl })
+    // The server writes too (the e-mail outbox runs in the background): wait for its lock, as the server does.
+    this.client = createClient({ url: stack.databaseUrl, timeout: 5000 })
   }
 
   async exercise(teamId: number, exercise: ExerciseFixture) {

@@ -31,7 +31,7 @@ describe('exerciseIdsIn', () => {
 describe('assignments_created e-mail', () => {
   it('lists every date as a calendar day and the note', () => {
     const mail = renderEmail('assignments_created', { athleteName: 'Wren', coachName: 'Idris', teamName: 'Larchford', title: 'Hill reps', dates: ['2027-03-28', '2027-03-23'], note: 'Easy descents', url: 'http://x/today' })
-    expect(mail.subject).toBe('New training: Hill reps (2 sessions)')
+    expect(mail.subject).toBe('Planned for you: Hill reps (2 sessions)')
     expect(mail.text).toContain('- Sun 28 Mar 2027')
     expect(mail.text).toContain('- Tue 23 Mar 2027')
     expect(mail.text).toContain('Easy descents')

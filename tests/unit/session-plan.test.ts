@@ -52,7 +52,9 @@ describe('planSession', () => {
 
   it('keeps the cautions that concern active injury notes of exercises in the session', () => {
     const plan = planSession(snapshot, { paces: null, estimatedMaxKg: {}, injuryNotes: [{ bodyArea: 'achilles', status: 'active' }, { bodyArea: 'lower_back', status: 'resolved' }] })
-    expect(plan.injuryCautions.map(caution => [caution.exerciseName, caution.matchedAreas])).toEqual([['Hill run', ['achilles']]])
+    // The hill step's own caution (uphill → Achilles, calf) joins the exercise's.
+    expect(plan.injuryCautions.map(caution => [caution.exerciseName, caution.matchedAreas])).toEqual([['Hill run', ['achilles']], ['Uphill efforts', ['achilles']]])
+    expect(plan.segments.find(segment => segment.stepId === 'up')!.stepCautions).toEqual(['uphill'])
     expect(plan.equipment).toEqual(['Barbell', 'Rack'])
     expect(plan.generalCautions.some(text => /downhill/.test(text))).toBe(true)
     expect(plan.generalCautions.some(text => /Land softly/.test(text))).toBe(false)

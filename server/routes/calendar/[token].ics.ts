@@ -1,7 +1,8 @@
 import { and, asc, eq, gte, isNull } from 'drizzle-orm'
 import ical, { ICalCalendarMethod } from 'ical-generator'
 import { assignments, calendarFeeds, memberships, teams, users } from '../../db/schema'
-import { statusLabels, shownStatus, routineCategoryLabels } from '../../../shared/utils/assignment-status'
+import { shownStatus } from '../../../shared/utils/assignment-status'
+import { routineCategoryLabel, statusLabels } from '../../../shared/utils/vocabulary'
 import { addDays, dayToUtcDate, todayIn } from '../../../shared/utils/dates'
 
 const FEED_PAST_DAYS = 60
@@ -43,12 +44,12 @@ export default defineEventHandler(async (event) => {
       lastModified: row.updatedAt,
       summary: row.snapshot.title,
       description: [
-        `${routineCategoryLabels[row.snapshot.category] ?? row.snapshot.category} · ${status}`,
+        `${routineCategoryLabel(row.snapshot.category)} · ${status}`,
         row.note ? `Note from your coach: ${row.note}` : '',
         url,
       ].filter(Boolean).join('\n\n'),
       url,
-      categories: [{ name: routineCategoryLabels[row.snapshot.category] ?? row.snapshot.category }],
+      categories: [{ name: routineCategoryLabel(row.snapshot.category) }],
     })
   }
   setResponseHeader(event, 'content-type', 'text/calendar; charset=utf-8')

@@ -1,7 +1,8 @@
 import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm'
 import { idParamsSchema } from '../../../../shared/schemas/common'
 import { planSession } from '../../../../shared/utils/session-plan'
-import { exercises, sessionLogs } from '../../../db/schema'
+import { isUnder18 } from '../../../../shared/utils/age'
+import { exercises, sessionLogs, teams } from '../../../db/schema'
 
 /** The assigned athlete's own session plan: segments with their paces and loads, and the cautions. */
 export default defineEventHandler(async (event) => {
@@ -19,6 +20,7 @@ export default defineEventHandler(async (event) => {
   const sessions = await db.select().from(sessionLogs)
     .where(and(eq(sessionLogs.assignmentId, assignment.id), eq(sessionLogs.athleteId, caller.userId)))
     .orderBy(desc(sessionLogs.startedAt))
+  const [team] = await db.select({ emergencyNumber: teams.emergencyNumber }).from(teams).where(eq(teams.id, caller.teamId)).limit(1)
   const exerciseIds = assignment.snapshot.exercises.map(exercise => exercise.id)
   const withClips = exerciseIds.length
     ? await db.select({ id: exercises.id }).from(exercises)
@@ -32,8 +34,10 @@ export default defineEventHandler(async (event) => {
       name: context.athlete.name,
       units: context.profile?.units ?? 'km',
       hasBenchmark: Boolean(context.paces),
+      under18: isUnder18(context.profile?.birthYear),
       activeInjuries: context.injuryNotes.filter(note => note.status === 'active').map(note => ({ id: note.id, bodyArea: note.bodyArea, note: note.note })),
     },
+    team: { emergencyNumber: team?.emergencyNumber ?? null },
     plan,
     sessions: sessions.map(sessionView),
   }

@@ -36,7 +36,7 @@ export default defineEventHandler(async (event): Promise<RoutinePreview> => {
     timeline,
     exercises: exercises.map(exercise => ({ id: exercise.id, name: exercise.name, category: exercise.category })),
     injuryNotes: activeNotes.map(note => ({ bodyArea: note.bodyArea, note: note.note, since: note.since })),
-    cautions: matchCautions(exercises, activeNotes),
+    cautions: matchCautions(exercises, activeNotes, routine.steps),
     generalCautions: generalCautions([routine.category, ...exercises.map(exercise => exercise.category)]),
   }
 })
