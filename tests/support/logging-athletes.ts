@@ -6,6 +6,7 @@ export const LOGGER_PASSWORD = 'logging-athlete-password'
 
 export interface LoggingAthlete {
   client: ApiClient
+  userId: number
   sessionId: number
   /** The entry bodies this athlete will send, one per round, each with its own idempotency key. */
   entries: { idempotencyKey: string, stepId: string, round: number, seconds: number, rpe: number }[]
@@ -44,14 +45,29 @@ export async function seedLoggingAthletes(databaseUrl: string, url: string, coun
     const clientId = `run-${tag}-${index}`
     const session = await client.post<{ id: number }>(`/api/assignments/${Number(assignment.rows[0]!.id)}/sessions`, { clientId })
     if (session.status !== 201) throw new Error(`start failed: ${session.status} ${session.text}`)
-    athletes.push({
-      client,
-      sessionId: session.data.id,
-      entries: Array.from({ length: rounds }, (_, round) => ({ idempotencyKey: `${clientId}:effort:${round + 1}:0`, stepId: 'effort', round: round + 1, seconds: 30, rpe: 6 })),
-    })
+    athletes.push({ client, userId, sessionId: session.data.id, entries: roundEntries(clientId, rounds) })
   }
   db.close()
-  return { teamId, athletes }
+
+  /** Gives `athlete` a new assignment for today and starts it: the next session of a long run. */
+  async function nextSession(athlete: LoggingAthlete, run: number) {
+    const writer = createClient({ url: databaseUrl, timeout: 5000 })
+    const assignment = await writer.execute({
+      sql: 'insert into assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date, status) values (?, ?, ?, 1, ?, ?, ?) returning id',
+      args: [teamId, athlete.userId, routineId, JSON.stringify(snapshot), today, 'planned'],
+    })
+    writer.close()
+    const clientId = `run-${tag}-${athlete.userId}-${run}`
+    const session = await athlete.client.post<{ id: number }>(`/api/assignments/${Number(assignment.rows[0]!.id)}/sessions`, { clientId })
+    if (session.status !== 201) throw new Error(`start failed: ${session.status} ${session.text}`)
+    athlete.sessionId = session.data.id
+    athlete.entries = roundEntries(clientId, rounds)
+  }
+  return { teamId, athletes, nextSession }
+}
+
+function roundEntries(clientId: string, rounds: number): LoggingAthlete['entries'] {
+  return Array.from({ length: rounds }, (_, round) => ({ idempotencyKey: `${clientId}:effort:${round + 1}:0`, stepId: 'effort', round: round + 1, seconds: 30, rpe: 6 }))
 }
 
 export interface Acknowledged { keys: Set<string>, byStatus: Map<number, number>, latenciesMs: number[] }

@@ -28,7 +28,7 @@ export interface Stack {
   dir: string
   databaseUrl: string
   mail: MailCatcher
-  s3: { endpoint: string, bucket: string, stop: () => Promise<void> }
+  s3: { endpoint: string, bucket: string, stop: () => Promise<unknown>, start: () => Promise<void> }
   env: Record<string, string>
   /** Stops and starts the app server again on the same port and database. */
   restartApp: () => Promise<void>
@@ -99,15 +99,27 @@ export async function startStack(extraEnv: Record<string, string> = {}, options:
   await mail.start()
 
   writeFileSync(join(dir, 'cors.xml'), corsXml)
-  const s3rver = new S3rver({
-    port: s3Port,
-    address: '127.0.0.1',
-    silent: true,
-    directory: join(dir, 's3'),
-    configureBuckets: [{ name: S3_BUCKET, configs: [corsXml] }],
-  })
-  await s3rver.run()
-  const s3 = { endpoint: `http://127.0.0.1:${s3Port}`, bucket: S3_BUCKET, stop: () => s3rver.close().catch(() => undefined) }
+  const openStore = async () => {
+    const store = new S3rver({
+      port: s3Port,
+      address: '127.0.0.1',
+      silent: true,
+      directory: join(dir, 's3'),
+      configureBuckets: [{ name: S3_BUCKET, configs: [corsXml] }],
+    })
+    await store.run()
+    return store
+  }
+  let s3rver = await openStore()
+  const s3 = {
+    endpoint: `http://127.0.0.1:${s3Port}`,
+    bucket: S3_BUCKET,
+    stop: () => s3rver.close().catch(() => undefined),
+    /** Starts the store again on the same port and folder, after `stop` (an outage that ends). */
+    start: async () => {
+      s3rver = await openStore()
+    },
+  }
 
   const url = `http://127.0.0.1:${appPort}`
   const databaseUrl = `file:${join(dir, 'test.db')}`
