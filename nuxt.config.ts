@@ -38,5 +38,12 @@ export default defineNuxtConfig({
   },
   typescript: { strict: true },
   telemetry: false,
+  hooks: {
+    // Our error handler runs first and only reshapes errors (database faults → 503, request ids);
+    // Nuxt's and Nitro's own handlers still render them.
+    'nitro:config'(nitroConfig) {
+      nitroConfig.errorHandler = [resolve(import.meta.dirname, 'server/error-handler.ts'), ...[nitroConfig.errorHandler ?? []].flat()]
+    },
+  },
   eslint: { config: { stylistic: true } },
 })

@@ -38,11 +38,14 @@ export function useClipUpload(exerciseId: MaybeRefOrGetter<number>) {
   const total = ref(0)
   const error = ref('')
   const signal: { abort?: () => void } = {}
+  // The last file that failed, so a store or network outage ends in "try again", not "choose it again".
+  const failedUpload = shallowRef<{ file: File, purpose: MediaPurpose } | null>(null)
   const percent = computed(() => (total.value ? Math.round((loaded.value / total.value) * 100) : 0))
   const busy = computed(() => ['signing', 'uploading', 'checking'].includes(phase.value))
 
   async function upload(file: File, purpose: MediaPurpose = 'clip'): Promise<ExerciseView | null> {
     error.value = ''
+    failedUpload.value = null
     loaded.value = 0
     total.value = file.size
     const contentType = file.type || (file.name.toLowerCase().endsWith('.mov') ? 'video/quicktime' : '')
@@ -69,6 +72,7 @@ export function useClipUpload(exerciseId: MaybeRefOrGetter<number>) {
     }
     catch (caught) {
       phase.value = 'failed'
+      if ((caught as Error).message !== 'Upload cancelled') failedUpload.value = { file, purpose }
       error.value = caught instanceof Error && !(caught as ServerError).data ? caught.message : messageOf(caught)
       return null
     }
@@ -78,5 +82,12 @@ export function useClipUpload(exerciseId: MaybeRefOrGetter<number>) {
     signal.abort?.()
   }
 
-  return { phase: readonly(phase), loaded: readonly(loaded), total: readonly(total), percent, busy, error: readonly(error), upload, cancel }
+  /** Sends the file that failed again, from the start (a new upload URL; nothing half-recorded remains). */
+  function retry() {
+    const failed = failedUpload.value
+    return failed ? upload(failed.file, failed.purpose) : Promise.resolve(null)
+  }
+  const canRetry = computed(() => phase.value === 'failed' && failedUpload.value !== null)
+
+  return { phase: readonly(phase), loaded: readonly(loaded), total: readonly(total), percent, busy, error: readonly(error), upload, cancel, retry, canRetry }
 }

@@ -3,9 +3,13 @@ import { dirname, resolve } from 'node:path'
 import { createClient, type Client } from '@libsql/client'
 import { drizzle, type LibSQLDatabase } from 'drizzle-orm/libsql'
 import { migrate } from 'drizzle-orm/libsql/migrator'
+import { recyclingClient } from './recycling-client'
 import * as schema from './schema'
 
 export type Database = LibSQLDatabase<typeof schema> & { $client: Client }
+
+/** How long a write waits for another process's lock before the request answers 503. */
+export const BUSY_TIMEOUT_MS = 5000
 
 export const defaultDatabaseUrl = 'file:.data/switchback.db'
 
@@ -16,11 +20,13 @@ export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> 
     const file = url.slice('file:'.length)
     mkdirSync(dirname(resolve(file)), { recursive: true })
   }
-  const client = createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN })
+  // The client keeps a pool of connections (a transaction holds its own), and a PRAGMA reaches only the
+  // connection that ran it: the busy timeout goes in the options so that every connection waits for a
+  // lock instead of failing at once. WAL is a property of the file, so setting it once is enough.
+  const connect = () => createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN, timeout: BUSY_TIMEOUT_MS })
+  const client = url.startsWith('file:') ? recyclingClient(connect) : connect()
   if (url.startsWith('file:')) {
     await client.execute('PRAGMA journal_mode = WAL')
-    await client.execute('PRAGMA busy_timeout = 5000')
-    await client.execute('PRAGMA synchronous = NORMAL')
   }
   await client.execute('PRAGMA foreign_keys = ON')
   return drizzle(client, { schema }) as Database

@@ -337,6 +337,15 @@ export const painFlags = sqliteTable('pain_flags', {
   index('pain_flags_acknowledged_by_idx').on(t.acknowledgedById),
 ])
 
+/** One row per background job: whichever app process holds the lease runs the job for that interval. */
+export const jobLeases = sqliteTable('job_leases', {
+  name: text('name').primaryKey(),
+  holder: text('holder').notNull(),
+  expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+  runs: integer('runs').notNull().default(0),
+  lastRunAt: integer('last_run_at', { mode: 'timestamp_ms' }),
+})
+
 export const teamsRelations = relations(teams, ({ many }) => ({
   memberships: many(memberships),
   squads: many(squads),

@@ -1,9 +1,6 @@
-// Clears abandoned clip uploads now and then (every 10 minutes unless MEDIA_SWEEP_INTERVAL_MS says otherwise).
+// Clears abandoned clip uploads now and then (every 10 minutes unless MEDIA_SWEEP_INTERVAL_MS says
+// otherwise). With several app processes on one database, a lease lets one of them run each interval.
 export default defineNitroPlugin((nitro) => {
-  const interval = Number(process.env.MEDIA_SWEEP_INTERVAL_MS) || 10 * 60_000
-  const timer = setInterval(() => {
-    sweepAbandonedUploads().catch(error => console.error('Media sweep failed:', error))
-  }, interval)
-  timer.unref()
-  nitro.hooks.hook('close', () => clearInterval(timer))
+  const stop = scheduleLeasedJob('media-sweep', useServerConfig().mediaSweepIntervalMs, () => sweepAbandonedUploads())
+  nitro.hooks.hook('close', stop)
 })

@@ -12,6 +12,8 @@ const configSchema = z.object({
   s3AccessKeyId: z.string().default('S3RVER'),
   s3SecretAccessKey: z.string().default('S3RVER'),
   outboxIntervalMs: z.coerce.number().int().positive().default(2000),
+  mediaSweepIntervalMs: z.coerce.number().int().positive().default(10 * 60_000),
+  healthCheckIntervalMs: z.coerce.number().int().positive().default(10_000),
 })
 
 export type AppConfig = z.infer<typeof configSchema>
@@ -32,6 +34,8 @@ export function useServerConfig(): AppConfig {
     s3AccessKeyId: process.env.S3_ACCESS_KEY_ID || undefined,
     s3SecretAccessKey: process.env.S3_SECRET_ACCESS_KEY || undefined,
     outboxIntervalMs: process.env.OUTBOX_INTERVAL_MS || undefined,
+    mediaSweepIntervalMs: process.env.MEDIA_SWEEP_INTERVAL_MS || undefined,
+    healthCheckIntervalMs: process.env.HEALTH_CHECK_INTERVAL_MS || undefined,
   })
   return cached
 }

@@ -12,4 +12,12 @@ export function useDb(): Promise<Database> {
   return database
 }
 
+/** Closes the connection at a graceful stop, after the last request and job have finished. */
+export async function closeDb() {
+  if (!database) return
+  const db = await database.catch(() => undefined)
+  database = undefined
+  db?.$client.close()
+}
+
 export * as tables from '../db/schema'

@@ -18,7 +18,7 @@ export async function enqueueEmail(db: Writer, message: { to: string, template: 
 
 let transport: Transporter | undefined
 
-function useTransport() {
+export function useTransport() {
   if (!transport) {
     const url = new URL(useServerConfig().smtpUrl)
     const loopback = ['127.0.0.1', 'localhost', '[::1]'].includes(url.hostname)
@@ -45,6 +45,7 @@ let running: Promise<number> | undefined
 
 /** Claims due messages in one statement (safe with several app replicas), sends them, records the outcome. */
 export function processOutbox(): Promise<number> {
+  if (stopping) return running ?? Promise.resolve(0)
   running ??= (async () => {
     try {
       const db = await useDb()
@@ -84,9 +85,21 @@ export function processOutbox(): Promise<number> {
 }
 
 let kick: ReturnType<typeof setTimeout> | undefined
+let stopping = false
+
+/**
+ * For a graceful stop: no new passes, and the pass in flight finishes, so every message this process
+ * claimed is either sent or handed back as pending before it exits.
+ */
+export async function stopOutbox() {
+  stopping = true
+  if (kick) clearTimeout(kick)
+  kick = undefined
+  await running?.catch(() => undefined)
+}
 
 export function kickOutbox() {
-  if (kick) return
+  if (kick || stopping) return
   kick = setTimeout(() => {
     kick = undefined
     processOutbox().catch(error => console.error('Outbox run failed:', error))

@@ -1,8 +1,11 @@
 /** A small HTTP client with its own cookie jar: one per signed-in person in a test. */
 export class ApiClient {
-  private cookies = new Map<string, string>()
+  constructor(readonly baseUrl: string, readonly headers: Record<string, string> = {}, private cookies = new Map<string, string>()) {}
 
-  constructor(readonly baseUrl: string, readonly headers: Record<string, string> = {}) {}
+  /** The same person (the same cookie jar) talking to another address, e.g. another app replica. */
+  on(baseUrl: string) {
+    return new ApiClient(baseUrl, this.headers, this.cookies)
+  }
 
   async request<T = unknown>(method: string, path: string, body?: unknown, init: { raw?: string, headers?: Record<string, string> } = {}) {
     const headers: Record<string, string> = { accept: 'application/json', ...this.headers, ...init.headers }

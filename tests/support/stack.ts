@@ -28,15 +28,15 @@ export interface Stack {
   dir: string
   databaseUrl: string
   mail: MailCatcher
-  s3: { endpoint: string, bucket: string, stop: () => Promise<void> }
+  s3: { endpoint: string, bucket: string, stop: () => Promise<unknown>, start: () => Promise<void> }
   env: Record<string, string>
   /** Stops and starts the app server again on the same port and database. */
   restartApp: () => Promise<void>
   stop: () => Promise<void>
 }
 
-async function waitForServer(url: string, child: ChildProcess, log: () => string) {
-  const deadline = Date.now() + 30_000
+export async function waitForServer(url: string, child: ChildProcess, log: () => string) {
+  const deadline = Date.now() + 60_000
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`App server exited early:\n${log()}`)
     try {
@@ -51,26 +51,75 @@ async function waitForServer(url: string, child: ChildProcess, log: () => string
   throw new Error(`App server did not start:\n${log()}`)
 }
 
+export interface AppProcess {
+  url: string
+  child: ChildProcess
+  /** Everything the process printed so far. */
+  output: () => string
+  /** SIGTERM (a graceful stop), then SIGKILL after 5 s; resolves with the exit code. */
+  stop: (signal?: NodeJS.Signals) => Promise<number | null>
+}
+
+/** Starts one built app process with `env`, on `env.PORT`, and waits until it answers. */
+export async function spawnApp(env: Record<string, string>): Promise<AppProcess> {
+  const url = `http://127.0.0.1:${env.PORT}`
+  let output = ''
+  const child = spawn(process.execPath, [join(root, '.output/server/index.mjs')], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] })
+  const collect = (chunk: Buffer) => {
+    output += chunk.toString()
+  }
+  child.stdout?.on('data', collect)
+  child.stderr?.on('data', collect)
+  const exited = new Promise<number | null>(resolveExit => child.once('exit', code => resolveExit(code)))
+  await waitForServer(url, child, () => output)
+  return {
+    url,
+    child,
+    output: () => output,
+    stop: async (signal = 'SIGTERM') => {
+      if (child.exitCode !== null || child.signalCode !== null) return child.exitCode
+      child.kill(signal)
+      const force = setTimeout(() => child.kill('SIGKILL'), 5000)
+      force.unref()
+      const code = await exited
+      clearTimeout(force)
+      return code
+    },
+  }
+}
+
 /**
  * The real built server (`.output`, from `npm run build`) against a temporary SQLite file,
  * a real S3-compatible store (s3rver) and an in-process SMTP catcher, each on a free port.
  */
-export async function startStack(extraEnv: Record<string, string> = {}): Promise<Stack> {
+export async function startStack(extraEnv: Record<string, string> = {}, options: { startApp?: boolean } = {}): Promise<Stack> {
   const dir = mkdtempSync(join(tmpdir(), 'switchback-test-'))
   const [appPort, smtpPort, s3Port] = [await freePort(), await freePort(), await freePort()]
   const mail = new MailCatcher(smtpPort)
   await mail.start()
 
   writeFileSync(join(dir, 'cors.xml'), corsXml)
-  const s3rver = new S3rver({
-    port: s3Port,
-    address: '127.0.0.1',
-    silent: true,
-    directory: join(dir, 's3'),
-    configureBuckets: [{ name: S3_BUCKET, configs: [corsXml] }],
-  })
-  await s3rver.run()
-  const s3 = { endpoint: `http://127.0.0.1:${s3Port}`, bucket: S3_BUCKET, stop: () => s3rver.close() }
+  const openStore = async () => {
+    const store = new S3rver({
+      port: s3Port,
+      address: '127.0.0.1',
+      silent: true,
+      directory: join(dir, 's3'),
+      configureBuckets: [{ name: S3_BUCKET, configs: [corsXml] }],
+    })
+    await store.run()
+    return store
+  }
+  let s3rver = await openStore()
+  const s3 = {
+    endpoint: `http://127.0.0.1:${s3Port}`,
+    bucket: S3_BUCKET,
+    stop: () => s3rver.close().catch(() => undefined),
+    /** Starts the store again on the same port and folder, after `stop` (an outage that ends). */
+    start: async () => {
+      s3rver = await openStore()
+    },
+  }
 
   const url = `http://127.0.0.1:${appPort}`
   const databaseUrl = `file:${join(dir, 'test.db')}`
@@ -96,27 +145,14 @@ export async function startStack(extraEnv: Record<string, string> = {}): Promise
     ...extraEnv,
   }
 
-  let child: ChildProcess
-  let output = ''
+  let app: AppProcess | undefined
   async function startApp() {
-    output = ''
-    child = spawn(process.execPath, [join(root, '.output/server/index.mjs')], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] })
-    const collect = (chunk: Buffer) => {
-      output += chunk.toString()
-    }
-    child.stdout?.on('data', collect)
-    child.stderr?.on('data', collect)
-    await waitForServer(url, child, () => output)
+    app = await spawnApp(env)
   }
   async function stopApp() {
-    if (child.exitCode !== null) return
-    await new Promise<void>((resolveExit) => {
-      child.once('exit', () => resolveExit())
-      child.kill('SIGTERM')
-      setTimeout(() => child.kill('SIGKILL'), 5000).unref()
-    })
+    await app?.stop()
   }
-  await startApp()
+  if (options.startApp !== false) await startApp()
 
   return {
     url,
