@@ -28,6 +28,8 @@ export default defineNuxtConfig({
   serverDir: 'server',
   compatibilityDate: '2026-01-01',
   nitro: {
+    // Scripts, styles and fonts go out pre-compressed (brotli and gzip), chosen by Accept-Encoding.
+    compressPublicAssets: { brotli: true, gzip: true },
     experimental: { tasks: false },
     hooks: {
       // The built server migrates its database at start, so it ships the migrations beside itself.

@@ -35,12 +35,12 @@ export interface Stack {
   stop: () => Promise<void>
 }
 
-export async function waitForServer(url: string, child: ChildProcess, log: () => string) {
+export async function waitForServer(url: string, child: ChildProcess, log: () => string, path = '/api/health') {
   const deadline = Date.now() + 60_000
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`App server exited early:\n${log()}`)
     try {
-      const response = await fetch(`${url}/api/health`)
+      const response = await fetch(`${url}${path}`)
       if (response.ok) return
     }
     catch {

@@ -1,0 +1,202 @@
+// npm run bench (after npm run build): in one run, the bare Nitro yardstick in bench/bare and the built
+// app on a freshly seeded demo club; prints one table of figures as ratios to the yardstick, then the
+// entry-logging, player, Lighthouse and insights figures. Stops everything it started.
+import { spawn, type ChildProcess } from 'node:child_process'
+import { existsSync, readFileSync, statSync } from 'node:fs'
+import { join } from 'node:path'
+import { gzipSync } from 'node:zlib'
+import autocannon from 'autocannon'
+import { createClient } from '@libsql/client'
+import { ApiClient } from '../tests/support/client'
+import { launchBrowser, newContext } from '../tests/support/browser'
+import { logEverything, seedLoggingAthletes } from '../tests/support/logging-athletes'
+import { freePort, root, spawnApp, startStack, waitForServer } from '../tests/support/stack'
+
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 8)
+const CONNECTIONS = 10
+const DEMO_PASSWORD = 'switchback-demo'
+const bare = join(root, 'bench/bare')
+
+function run(command: string, args: string[], options: { cwd?: string, env?: Record<string, string> } = {}) {
+  return new Promise<void>((resolveRun, reject) => {
+    const child = spawn(command, args, { cwd: options.cwd ?? root, env: { ...process.env, ...options.env }, stdio: ['ignore', 'ignore', 'inherit'] })
+    child.on('exit', code => (code === 0 ? resolveRun() : reject(new Error(`${command} ${args.join(' ')} exited with ${code}`))))
+  })
+}
+
+interface Measured { path: string, who: string, requestsPerSecond: number, p50: number, p99: number, non2xx: number, bytes: number }
+
+async function measure(url: string, path: string, who: string, cookie?: string): Promise<Measured> {
+  const result = await autocannon({ url: `${url}${path}`, connections: CONNECTIONS, duration: SECONDS, headers: cookie ? { cookie, accept: path.startsWith('/api') ? 'application/json' : 'text/html' } : {} })
+  return {
+    path,
+    who,
+    requestsPerSecond: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    non2xx: result.non2xx,
+    bytes: result.requests.total ? result.throughput.total / result.requests.total : 0,
+  }
+}
+
+async function signIn(url: string, email: string) {
+  const client = new ApiClient(url)
+  const response = await client.post('/api/auth/login', { email, password: DEMO_PASSWORD })
+  if (response.status !== 200) throw new Error(`sign-in of ${email} failed: ${response.status} ${response.text}`)
+  const cookie = response.headers.getSetCookie().map(value => value.split(';')[0]).join('; ')
+  return { client, cookie }
+}
+
+/** The session player opened cold: every script it loads, and their size gzipped as the build ships them. */
+async function playerScripts(url: string, cookie: string, path: string) {
+  const browser = await launchBrowser()
+  try {
+    const context = await newContext(browser, 'phone')
+    const [name, value] = cookie.split(';')[0]!.split('=')
+    await context.addCookies([{ name: name!, value: value!, url }])
+    const page = await context.newPage()
+    const scripts = new Set<string>()
+    page.on('request', (request) => {
+      if (request.resourceType() === 'script') scripts.add(new URL(request.url()).pathname)
+    })
+    await page.goto(`${url}${path}`, { waitUntil: 'networkidle' })
+    let gzipped = 0
+    let raw = 0
+    for (const script of scripts) {
+      const file = join(root, '.output/public', script)
+      if (!existsSync(file)) continue
+      const bytes = readFileSync(file)
+      raw += bytes.length
+      gzipped += gzipSync(bytes, { level: 9 }).length
+    }
+    return { count: scripts.size, gzippedKb: gzipped / 1024, rawKb: raw / 1024 }
+  }
+  finally {
+    await browser.close()
+  }
+}
+
+async function lighthouseScores(url: string, cookie: string, paths: string[]) {
+  let lighthouse: typeof import('lighthouse').default
+  let launch: typeof import('chrome-launcher').launch
+  try {
+    lighthouse = (await import('lighthouse')).default
+    launch = (await import('chrome-launcher')).launch
+  }
+  catch {
+    return paths.map(path => ({ path, note: 'lighthouse is not installed' }))
+  }
+  const chrome = await launch({ chromePath: process.env.CHROME_PATH ?? '/usr/bin/chromium', chromeFlags: ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync'] })
+  try {
+    const scores = []
+    for (const path of paths) {
+      const result = await lighthouse(`${url}${path}`, { port: chrome.port, output: 'json', logLevel: 'error', extraHeaders: { Cookie: cookie }, onlyCategories: ['performance', 'accessibility', 'best-practices'] })
+      const categories = result!.lhr.categories
+      const audit = (id: string) => result!.lhr.audits[id]?.numericValue ?? Number.NaN
+      scores.push({
+        path,
+        performance: Math.round((categories.performance?.score ?? 0) * 100),
+        accessibility: Math.round((categories.accessibility?.score ?? 0) * 100),
+        bestPractices: Math.round((categories['best-practices']?.score ?? 0) * 100),
+        firstPaintMs: audit('first-contentful-paint'),
+        largestPaintMs: audit('largest-contentful-paint'),
+        blockingMs: audit('total-blocking-time'),
+        transferKb: audit('total-byte-weight') / 1024,
+      })
+    }
+    return scores
+  }
+  finally {
+    chrome.kill()
+  }
+}
+
+async function main() {
+  if (!existsSync(join(root, '.output/server/index.mjs'))) throw new Error('Build the app first: npm run build')
+  if (!existsSync(join(bare, '.output/server/index.mjs'))) {
+    console.log('Building the bare Nitro yardstick (bench/bare)…')
+    await run(join(root, 'node_modules/.bin/nitropack'), ['build'], { cwd: bare })
+  }
+  const stack = await startStack({ OUTBOX_INTERVAL_MS: '600000' }, { startApp: false })
+  const children: ChildProcess[] = []
+  try {
+    console.log('Seeding the demo club…')
+    await run(join(root, 'node_modules/.bin/tsx'), [join(root, 'seeds/index.ts')], { env: stack.env })
+    const app = await spawnApp(stack.env)
+    const barePort = await freePort()
+    const bareUrl = `http://127.0.0.1:${barePort}`
+    const bareChild = spawn(process.execPath, [join(bare, '.output/server/index.mjs')], { env: { PATH: process.env.PATH ?? '', PORT: String(barePort), HOST: '127.0.0.1', NITRO_HOST: '127.0.0.1' }, stdio: 'ignore' })
+    children.push(bareChild)
+    await waitForServer(bareUrl, bareChild, () => '', '/')
+
+    const coach = await signIn(app.url, 'morwen@larchford.example')
+    const athlete = await signIn(app.url, 'tamsin@larchford.example')
+    const planned = (await athlete.client.get<{ today: string, assignments: { id: number, date: string }[] }>('/api/me/assignments')).data
+    const next = planned.assignments.find(item => item.date >= planned.today)
+    const sessionPath = next ? `/session/${next.id}` : '/today'
+
+    const paths: [string, string, string | undefined][] = [
+      ['/api/health', 'anyone', undefined],
+      ['/api/exercises', 'coach', coach.cookie],
+      ['/api/me/assignments', 'athlete', athlete.cookie],
+      ['/api/insights/team', 'coach', coach.cookie],
+      ['/api/coach/home', 'coach', coach.cookie],
+      ['/exercises', 'coach (page)', coach.cookie],
+      ['/today', 'athlete (page)', athlete.cookie],
+    ]
+    console.log(`Measuring ${paths.length + 1} paths, ${SECONDS} s each with ${CONNECTIONS} connections…`)
+    const yardstick = await measure(bareUrl, '/', 'bare Nitro route')
+    const rows: Measured[] = [yardstick]
+    for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie))
+
+    console.log('Logging sets: 50 athletes at once…')
+    const { athletes } = await seedLoggingAthletes(stack.databaseUrl, app.url, 50, 60)
+    const started = performance.now()
+    const acknowledged = await logEverything(athletes)
+    const elapsed = (performance.now() - started) / 1000
+    const db = createClient({ url: stack.databaseUrl, timeout: 5000 })
+    const stored = Number((await db.execute(`select count(*) as n from entry_logs where session_id in (${athletes.map(a => a.sessionId).join(',')})`)).rows[0]!.n)
+    db.close()
+    const sortedLatency = [...acknowledged.latenciesMs].sort((a, b) => a - b)
+    const entryP99 = sortedLatency[Math.ceil(0.99 * sortedLatency.length) - 1] ?? 0
+
+    console.log('Opening the session player cold in Chromium…')
+    const player = await playerScripts(app.url, athlete.cookie, sessionPath)
+    console.log('Lighthouse (mobile, default throttling)…')
+    const lighthouse = await lighthouseScores(app.url, athlete.cookie, ['/today', sessionPath])
+
+    console.log('')
+    console.log(`Switchback benchmark · ${new Date().toISOString().slice(0, 10)} · ${SECONDS} s per path, ${CONNECTIONS} connections`)
+    console.log('')
+    console.log('| path | caller | req/s | vs bare | p50 ms | p99 ms | non-2xx | bytes/resp |')
+    console.log('|---|---|---|---|---|---|---|---|')
+    for (const row of rows) {
+      console.log(`| ${row.path} | ${row.who} | ${row.requestsPerSecond.toFixed(0)} | ${(row.requestsPerSecond / yardstick.requestsPerSecond).toFixed(3)} | ${row.p50} | ${row.p99} | ${row.non2xx} | ${row.bytes.toFixed(0)} |`)
+    }
+    console.log('')
+    console.log(`Entries: ${acknowledged.keys.size} acknowledged · ${stored} stored · ${(acknowledged.keys.size / elapsed).toFixed(0)} acknowledged writes/s · p99 ${entryP99.toFixed(1)} ms (50 athletes at once)`)
+    console.log(`Session player (${sessionPath}, cold): ${player.count} scripts · ${player.gzippedKb.toFixed(1)} KB gzipped · ${player.rawKb.toFixed(1)} KB raw`)
+    for (const score of lighthouse) {
+      if ('note' in score) console.log(`Lighthouse ${score.path}: ${score.note}`)
+      else console.log(`Lighthouse ${score.path}: performance ${score.performance} · accessibility ${score.accessibility} · best practices ${score.bestPractices} · first paint ${(score.firstPaintMs / 1000).toFixed(1)} s · largest paint ${(score.largestPaintMs / 1000).toFixed(1)} s · blocking ${score.blockingMs.toFixed(0)} ms · ${score.transferKb.toFixed(0)} KB`)
+    }
+    const assets = statSync(join(root, '.output/public/_nuxt')).isDirectory()
+    if (assets) console.log('Timer figures: run `npx vitest run --project browser tests/browser/session-player.test.ts` (it prints step-change lateness).')
+    await app.stop()
+  }
+  finally {
+    for (const child of children) child.kill('SIGTERM')
+    await stack.stop()
+  }
+  console.log('')
+  console.log('Team insights, 100 athletes × a year:')
+  await new Promise<void>((resolveRun, reject) => {
+    const child = spawn(join(root, 'node_modules/.bin/tsx'), [join(root, 'bench/team-insights.ts')], { cwd: root, stdio: 'inherit' })
+    child.on('exit', code => (code === 0 ? resolveRun() : reject(new Error(`team insights bench exited with ${code}`))))
+  })
+}
+
+main().catch((error) => {
+  console.error(error)
+  process.exit(1)
+})
