@@ -4,14 +4,17 @@
 export default defineNuxtPlugin((nuxtApp) => {
   const offline = useOfflineStore()
   const outbox = useSessionOutboxStore()
+  const player = useSessionPlayerStore()
   const { session, loggedIn } = useUserSession()
 
   const isAthlete = () => loggedIn.value && session.value?.role === 'athlete'
+  // A running session's own logs go first; fetching ahead waits for the next page after it.
+  const sessionRunning = () => player.started && !player.finishedSent
 
   async function upkeep() {
     if (!navigator.onLine) return
     if (!await offline.sendPendingSignOut()) return
-    if (isAthlete() && offline.workerReady) await offline.prefetchAhead()
+    if (isAthlete() && offline.workerReady && !sessionRunning()) await offline.prefetchAhead()
   }
 
   nuxtApp.hook('app:mounted', () => {

@@ -266,4 +266,27 @@ describe('the athlete side with no network', () => {
     expect(Number(logs!.count)).toBe(0)
     await context.close()
   })
+
+  it('gives a coach a clear offline message instead of a blank page, and keeps none of the coach\'s reads', async () => {
+    const context = await newContext(browser, 'desktop')
+    await signIn(context, team.email)
+    const page = await context.newPage()
+    await page.goto(`${stack.url}/planner`)
+    await expect.poll(() => page.getByTestId('offline-status').getAttribute('data-worker'), { timeout: 60_000 }).toBe('ready')
+    await expect.poll(() => page.evaluate(() => Boolean(navigator.serviceWorker.controller)), { timeout: 30_000 }).toBe(true)
+
+    await context.setOffline(true)
+    // Moving inside the open app: the strip says what is going on.
+    await page.getByRole('link', { name: 'Library' }).click()
+    await page.getByTestId('offline-status').getByText(/Coach pages need a connection/).waitFor()
+    // Opening a coach page from cold: the offline page, not an empty screen.
+    await page.goto(`${stack.url}/insights`)
+    await page.getByRole('heading', { name: 'You are offline' }).waitFor()
+    expect(await page.getByRole('alert').textContent()).toMatch(/coach pages .* load fresh from the server/)
+    await page.screenshot({ path: screenshotPath('offline-coach-desktop'), fullPage: true })
+    const names = await page.evaluate(() => caches.keys())
+    expect(names).not.toContain('switchback-api-v1')
+    expect(names).not.toContain('switchback-clips-v1')
+    await context.close()
+  })
 })
