@@ -3,7 +3,7 @@ import { resolve } from 'node:path'
 
 export default defineNuxtConfig({
   // Root-level layout: keep Nuxt from switching to an `app/` folder if one ever appears.
-  modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils'],
+  modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils', '@vite-pwa/nuxt'],
   imports: { dirs: ['stores', 'composables'] },
   devtools: { enabled: false },
   app: {
@@ -15,7 +15,11 @@ export default defineNuxtConfig({
         { name: 'description', content: 'Strength, hill and drill routines for running coaches and their athletes.' },
         { name: 'theme-color', content: '#1f4d3a' },
       ],
-      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+      link: [
+        { rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' },
+        { rel: 'manifest', href: '/manifest.webmanifest' },
+        { rel: 'apple-touch-icon', href: '/icons/apple-touch-icon-180.png' },
+      ],
     },
   },
   css: ['~/assets/css/main.css'],
@@ -26,6 +30,9 @@ export default defineNuxtConfig({
   },
   srcDir: '.',
   serverDir: 'server',
+  // The app shell the service worker opens athlete pages from when there is no network: rendered in
+  // the browser, so it carries no one's data and reads everything from the worker's cache.
+  routeRules: { '/offline-shell': { ssr: false } },
   compatibilityDate: '2026-01-01',
   nitro: {
     // Scripts, styles and fonts go out pre-compressed (brotli and gzip), chosen by Accept-Encoding.
@@ -48,4 +55,41 @@ export default defineNuxtConfig({
     },
   },
   eslint: { config: { stylistic: true } },
+  // Installable app and service worker (production builds only; see docs/offline.md).
+  pwa: {
+    strategies: 'injectManifest',
+    srcDir: 'service-worker',
+    filename: 'sw.ts',
+    registerType: 'prompt',
+    injectRegister: false,
+    registerWebManifestInRouteRules: true,
+    client: { registerPlugin: true, installPrompt: false, periodicSyncForUpdates: 3600 },
+    devOptions: { enabled: false },
+    manifest: {
+      id: '/',
+      name: 'Switchback — strength, hills and drills',
+      short_name: 'Switchback',
+      description: 'Strength, hill and drill routines for running coaches and their athletes; sessions run with no signal.',
+      start_url: '/',
+      scope: '/',
+      display: 'standalone',
+      orientation: 'any',
+      // pine-800 and granite-50 from tailwind.config.ts
+      theme_color: '#1f4d3a',
+      background_color: '#f6f6f4',
+      icons: [
+        { src: '/icons/icon-64.png', sizes: '64x64', type: 'image/png' },
+        { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png' },
+        { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png' },
+        { src: '/icons/maskable-192.png', sizes: '192x192', type: 'image/png', purpose: 'maskable' },
+        { src: '/icons/maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      ],
+    },
+    injectManifest: {
+      globPatterns: ['_nuxt/**/*.{js,css,woff2}', 'icons/*.png', 'favicon.svg', 'offline.htm'],
+      // Rendered by the server at install time, so it carries this server's runtime settings.
+      additionalManifestEntries: [{ url: '/offline-shell', revision: String(Date.now()) }],
+      rollupFormat: 'iife',
+    },
+  },
 })

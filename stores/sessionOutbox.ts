@@ -152,9 +152,20 @@ export const useSessionOutboxStore = defineStore('sessionOutbox', () => {
     }
   }
 
+  /** Drops everything kept for this person (sign-out); storage itself is cleared by the caller. */
+  function forget() {
+    clearTimeout(retryTimer)
+    queue.value = []
+    sessions.value = {}
+    entries.value = {}
+    finished.value = {}
+    rejected.value = []
+    lastSentAt.value = null
+  }
+
   function pendingFor(clientId: string) {
     return queue.value.filter(operation => operation.clientId === clientId).length
   }
 
-  return { queue, sessions, entries, finished, rejected, online, sending, pending, lastSentAt, load, enqueue, flush, pendingFor }
+  return { queue, sessions, entries, finished, rejected, online, sending, pending, lastSentAt, load, enqueue, flush, pendingFor, forget }
 })

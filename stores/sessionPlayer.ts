@@ -74,6 +74,8 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   let clock: SessionClock | null = null
   let now: () => number = () => performance.now()
   let listeners: ((changes: ClockChange[]) => void)[] = []
+  /** Set at sign-out: the run on screen must not write itself back to the device as the page goes. */
+  let forgotten = false
 
   const segments = computed(() => data.value?.plan.segments ?? [])
   const current = computed(() => (state.value ? segments.value[state.value.index] : undefined) ?? null)
@@ -87,7 +89,7 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   }
 
   function persist() {
-    if (!import.meta.client || !data.value || !clock) return
+    if (!import.meta.client || !data.value || !clock || forgotten) return
     const stored: StoredPlayer = {
       clientId: clientId.value,
       acknowledged: acknowledged.value,
@@ -109,6 +111,7 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   /** Loads a plan; picks up a session left part-way on this device, paused where it was. */
   function open(plan: PlayerPlan, options: { speed?: number } = {}) {
     outbox.load()
+    forgotten = false
     const speed = options.speed && options.speed > 0 ? options.speed : 1
     now = speed === 1 ? () => performance.now() : () => performance.now() * speed
     data.value = markRaw(plan)
@@ -262,9 +265,13 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
     persist()
   }
 
+  function forget() {
+    forgotten = true
+  }
+
   return {
     data, clientId, acknowledged, started, resumed, finishedSent, drafts, logged, state, timings,
     segments, current, next, finished, loggedList, loggableCount,
-    open, reset, onChanges, tick, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist,
+    open, reset, onChanges, tick, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist, forget,
   }
 })
