@@ -3,6 +3,7 @@ import ical, { ICalCalendarMethod } from 'ical-generator'
 import { assignments, calendarFeeds, memberships, teams, users } from '../../db/schema'
 import { statusLabels, shownStatus, routineCategoryLabels } from '../../../shared/utils/assignment-status'
 import { addDays, dayToUtcDate, todayIn } from '../../../shared/utils/dates'
+import { blockWeekLine } from '../../../shared/utils/block-week'
 
 const FEED_PAST_DAYS = 60
 
@@ -44,6 +45,7 @@ export default defineEventHandler(async (event) => {
       summary: row.snapshot.title,
       description: [
         `${routineCategoryLabels[row.snapshot.category] ?? row.snapshot.category} · ${status}`,
+        row.snapshot.block ? blockWeekLine(row.snapshot.block) : '',
         row.note ? `Note from your coach: ${row.note}` : '',
         url,
       ].filter(Boolean).join('\n\n'),
