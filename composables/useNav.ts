@@ -15,6 +15,7 @@ export function useNav() {
         { to: '/exercises', label: 'Library' },
         { to: '/routines', label: 'Routines' },
         { to: '/planner', label: 'Planner' },
+        { to: '/blocks', label: 'Blocks' },
         { to: '/insights', label: 'Insights' },
         { to: '/team', label: 'Team' },
       ]

@@ -350,3 +350,25 @@ export function ruleProblem(steps: readonly RoutineStep[], rule: ProgressionRule
   if (furthest < min) return `By week ${weeks} this falls to ${Number(furthest.toFixed(1))}; the least allowed is ${min}. Set a floor or a smaller step`
   return null
 }
+
+export interface ProgressableStep {
+  stepId: string
+  /** Depth in the tree, for indenting a picker. */
+  depth: number
+  step: RoutineStep
+  fields: ProgressionField[]
+}
+
+/** The steps of a routine that have at least one number a rule can change, in tree order. */
+export function progressableSteps(steps: readonly RoutineStep[]): ProgressableStep[] {
+  const found: ProgressableStep[] = []
+  const visit = (list: readonly RoutineStep[], depth: number) => {
+    for (const step of list) {
+      const fields = progressionFields.filter(field => baseValue(step, field) !== undefined)
+      if (fields.length) found.push({ stepId: step.id, depth, step, fields })
+      if (step.type === 'repeat') visit(step.steps, depth + 1)
+    }
+  }
+  visit(steps, 0)
+  return found
+}
