@@ -258,6 +258,13 @@ export async function writeBlockPlan(tx: Writer, input: {
     .where(and(eq(assignments.teamId, input.teamId), eq(assignments.blockId, block.id), gte(assignments.blockWeek, input.fromWeek)))
   const keptKeys = new Set(kept.map(row => `${row.athleteId}:${row.slotId}:${row.week}`))
 
+  // The first re-planned week says what changed from the week before as it was planned, not as the new rules would have it.
+  const previousWeek = input.fromWeek > 1
+    ? await tx.select({ athleteId: assignments.athleteId, slotId: assignments.blockRoutineId, snapshot: assignments.snapshot }).from(assignments)
+        .where(and(eq(assignments.teamId, input.teamId), eq(assignments.blockId, block.id), eq(assignments.blockWeek, input.fromWeek - 1)))
+    : []
+  const before = new Map(previousWeek.map(row => [`${row.athleteId}:${row.slotId}`, row.snapshot.steps]))
+
   const note = block.note
   const rows: (typeof assignments.$inferInsert)[] = []
   const datesByAthlete = new Map<number, string[]>()
@@ -267,13 +274,15 @@ export async function writeBlockPlan(tx: Writer, input: {
       for (const cell of week.cells) {
         if (keptKeys.has(`${athlete.id}:${cell.slotId}:${week.week}`)) continue
         const routine = input.routinesById.get(cell.routineId)!
+        const earlier = week.week === input.fromWeek ? before.get(`${athlete.id}:${cell.slotId}`) : undefined
+        const planned = earlier ? { ...cell, changes: describeChanges(earlier, cell.steps) } : cell
         const slotNote = input.loaded.routines.find(slot => slot.id === cell.slotId)?.note ?? ''
         rows.push({
           teamId: input.teamId,
           athleteId: athlete.id,
           routineId: routine.id,
           routineVersion: routine.version,
-          snapshot: weekSnapshot(routine, block, week, cell),
+          snapshot: weekSnapshot(routine, block, week, planned),
           date: cell.date,
           note: [note, slotNote].filter(Boolean).join('\n\n'),
           assignedById: input.coachId,

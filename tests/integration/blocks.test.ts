@@ -1,4 +1,5 @@
 import type { Client } from '@libsql/client'
+import ICAL from 'ical.js'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient, type FieldError } from '../support/client'
 import { countRows, hillSteps, insertExercise, insertRoutine, openTestDb, outboxSettled } from '../support/planner'
@@ -123,6 +124,13 @@ describe('planning a block', () => {
     expect(view.status).toBe(200)
     expect(view.data.weeks[3]).toMatchObject({ week: 4, kind: 'lighter' })
     expect(view.data.weeks[1]!.sessions[0]!.numbers.rounds).toBe(7)
+
+    // The calendar feed says the week too.
+    const feed = await team.athletes[0]!.athlete.post<{ url: string }>('/api/me/calendar-feed')
+    const calendar = new ICAL.Component(ICAL.parse(await (await fetch(feed.data.url)).text()) as unknown[])
+    const events = calendar.getAllSubcomponents('vevent').map(component => new ICAL.Event(component))
+    const fourth = events.find(event => event.startDate.toString() === '2027-03-23')!
+    expect(fourth.description).toContain('Spring hills: week 4 of 8, lighter week. −3 rounds from last week.')
   })
 
   it('re-plans only the weeks ahead and keeps logged sessions', async () => {
@@ -152,6 +160,8 @@ describe('planning a block', () => {
     const after = await blockSessions(id, athleteId)
     expect(new Set(after.map(row => row.snapshot.block.name))).toEqual(new Set(['Spring hills']))
     expect(after.slice(0, 3).map(row => row.id)).toEqual(before.slice(0, 3).map(row => row.id))
+    // Week 4 says what changed from week 3 as the athlete had it (8 rounds), not as the new rules would have it.
+    expect(after[3]!.snapshot.block.changes).toEqual(['−1 round'])
     // Weeks 1–3 as first planned: 6, 7, 8 rounds. Ahead: 6 + 2(n − 1) capped at 12 → week 4 lighter 12 × 0.6 = 7.2 → 7, then 12, 12, 12, taper 12 × 0.6 = 7.2 → 7.
     expect(after.map(roundsOf)).toEqual([6, 7, 8, 7, 12, 12, 12, 7])
     expect(after[0]!.status).toBe('done')
@@ -185,6 +195,29 @@ describe('planning a block', () => {
     const bad = await team.coach.put<FieldError>(`/api/blocks/${id}/weeks/5`, { blockRoutineId: slot.id, values: [{ stepId: 'reps', field: 'rounds', value: 150 }] })
     expect(bad.status).toBe(400)
     expect(bad.data.data?.fields).toHaveProperty(['values.0.value'])
+  })
+})
+
+describe('planning is all or nothing', () => {
+  it('leaves nothing behind when one session cannot be written', async () => {
+    const team = await blockTeam(2)
+    const { data: { id } } = await team.coach.post<{ id: number }>('/api/blocks', hillBlock(team))
+    const before = await Promise.all([countRows(db, 'assignments', team.teamId), countRows(db, 'email_outbox', team.teamId)])
+    // A storage failure on the second athlete's last week, after every other row was written.
+    await db.execute(`create trigger fail_block_week before insert on assignments when new.block_week = 8 and new.athlete_id = ${team.athletes[1]!.userId} begin select raise(abort, 'disk trouble'); end`)
+    try {
+      const response = await team.coach.post(`/api/blocks/${id}/plan`)
+      expect(response.status).toBeGreaterThanOrEqual(500)
+      expect(response.text).not.toMatch(/at .*\.mjs:\d+/)
+    }
+    finally {
+      await db.execute('drop trigger fail_block_week')
+    }
+    expect(await Promise.all([countRows(db, 'assignments', team.teamId), countRows(db, 'email_outbox', team.teamId)])).toEqual(before)
+    const view = await team.coach.get<{ planning: { plannedAt: string | null } }>(`/api/blocks/${id}`)
+    expect(view.data.planning.plannedAt).toBeNull()
+    const retry = await team.coach.post<{ created: number }>(`/api/blocks/${id}/plan`)
+    expect(retry.data.created).toBe(32)
   })
 })
 
