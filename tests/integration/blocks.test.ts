@@ -125,6 +125,11 @@ describe('planning a block', () => {
     expect(view.data.weeks[3]).toMatchObject({ week: 4, kind: 'lighter' })
     expect(view.data.weeks[1]!.sessions[0]!.numbers.rounds).toBe(7)
 
+    // "Update to the latest version" in the planner leaves block sessions and their week's numbers alone.
+    const refreshed = await team.coach.post<{ updated: number }>('/api/assignments/refresh-routine', { routineId: team.hills })
+    expect(refreshed.data.updated).toBe(0)
+    expect((await blockSessions(created.data.id, team.athletes[0]!.userId)).filter(row => row.routineId === team.hills).map(roundsOf)).toEqual([6, 7, 8, 5, 10, 10, 10, 6])
+
     // The calendar feed says the week too.
     const feed = await team.athletes[0]!.athlete.post<{ url: string }>('/api/me/calendar-feed')
     const calendar = new ICAL.Component(ICAL.parse(await (await fetch(feed.data.url)).text()) as unknown[])
