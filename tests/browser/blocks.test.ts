@@ -88,6 +88,13 @@ describe('training blocks in Chromium', () => {
     await page.getByText('Planned: 8 sessions').waitFor()
     await page.getByRole('heading', { name: 'Planned against done' }).waitFor()
 
+    // Week 3 by hand: 9 rounds instead of the rule's 8; its session and week 4's (for "what changed") follow at once.
+    await page.getByRole('button', { name: /Set week 3 by hand/ }).click()
+    await page.getByLabel(/: Rounds$/).fill('9')
+    await page.getByRole('button', { name: 'Save week 3' }).click()
+    await page.getByRole('status').filter({ hasText: 'Week 3 set by hand; 2 planned sessions updated.' }).waitFor()
+    await expect.poll(() => page.getByTestId('block-week-3').innerText()).toMatch(/9 rounds[\s\S]*set by hand/)
+
     const phoneCoach = await newContext(browser, 'phone')
     const phonePage = await signIn(phoneCoach, team.email)
     await phonePage.goto(page.url())
