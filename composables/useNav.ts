@@ -20,6 +20,7 @@ export function useNav() {
         { to: '/exercises', label: 'Library' },
         { to: '/routines', label: 'Routines' },
         { to: '/planner', label: 'Planner' },
+        { to: '/blocks', label: 'Blocks' },
         { to: '/insights', label: 'Insights', badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
         { to: '/team', label: 'Team' },
       ]

@@ -1,4 +1,5 @@
 import { migrateDatabase, openDatabase } from '../server/db/client'
+import { seedBlocks } from './blocks'
 import { seedClub } from './club'
 import type { SeedStep } from './context'
 import { seedExercises } from './exercises'
@@ -9,7 +10,7 @@ import { seedRoutines } from './routines'
 
 // Each later part of the demo adds its own step here, in the order its data depends on:
 // six weeks of logged history first, then the current block, then this week's logged sessions.
-const steps: SeedStep[] = [seedExercises, seedRoutines, seedInsights, seedPlan, seedPlayer]
+const steps: SeedStep[] = [seedExercises, seedRoutines, seedInsights, seedPlan, seedPlayer, seedBlocks]
 
 async function main() {
   const url = process.env.DATABASE_URL ?? 'file:.data/switchback.db'

@@ -1,13 +1,14 @@
 import { defineStore } from 'pinia'
 import { computed, markRaw, ref, shallowRef } from 'vue'
 import type { FinishInput } from '#shared/schemas/session'
+import type { SnapshotBlockWeek } from '#shared/types/domain'
 import { SessionClock, type ClockChange, type ClockSnapshot, type ClockState } from '#shared/utils/session-clock'
 import type { PlanSegment, SessionPlan } from '#shared/utils/session-plan'
 import { useSessionOutboxStore } from './sessionOutbox'
 
 export interface PlayerPlan {
   clipExerciseIds: number[]
-  assignment: { id: number, date: string, note: string, status: string, routineId: number }
+  assignment: { id: number, date: string, note: string, status: string, routineId: number, block?: SnapshotBlockWeek | null }
   athlete: { name: string, units: 'km' | 'mi', hasBenchmark: boolean, under18?: boolean, activeInjuries: { id: number, bodyArea: string, note: string }[] }
   team?: { emergencyNumber: string | null }
   plan: SessionPlan

@@ -3,6 +3,7 @@ import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from
 import type { RoutineStep } from '../../shared/utils/timeline'
 import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
 import { assignmentStatuses, exerciseCategories, injuryStatuses, invitableRoles, painFlagReasons, painFlagStatuses, roles, routineCategories } from '../../shared/utils/vocabulary'
+import type { FieldOverride, LighterWeeks, ProgressionRule, Taper } from '../../shared/utils/progression'
 
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
@@ -17,6 +18,8 @@ export const teams = sqliteTable('teams', {
   name: text('name').notNull(),
   // Shown in the urgent-help guidance; never a built-in default, since the number depends on the country.
   emergencyNumber: text('emergency_number'),
+  // The smallest total change the team's plates allow; block loads round to it.
+  plateIncrementKg: real('plate_increment_kg').notNull().default(2.5),
   ...timestamps,
 })
 
@@ -238,6 +241,67 @@ export const assignmentSeries = sqliteTable('assignment_series', {
   index('assignment_series_created_by_idx').on(t.createdById),
 ])
 
+export const blocks = sqliteTable('blocks', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  name: text('name').notNull(),
+  startDate: text('start_date').notNull(),
+  weeks: integer('weeks').notNull(),
+  goalRaceName: text('goal_race_name'),
+  goalRaceDate: text('goal_race_date'),
+  goalRaceDistanceM: real('goal_race_distance_m'),
+  lighter: text('lighter', { mode: 'json' }).$type<LighterWeeks>(),
+  taper: text('taper', { mode: 'json' }).$type<Taper>(),
+  note: text('note').notNull().default(''),
+  plannedAt: integer('planned_at', { mode: 'timestamp_ms' }),
+  // Bumped on every change, so the page can say whether the planned sessions are behind.
+  revision: integer('revision').notNull().default(1),
+  plannedRevision: integer('planned_revision'),
+  createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  index('blocks_team_start_idx').on(t.teamId, t.startDate),
+  index('blocks_created_by_idx').on(t.createdById),
+])
+
+export const blockRoutines = sqliteTable('block_routines', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  blockId: integer('block_id').notNull().references(() => blocks.id, { onDelete: 'cascade' }),
+  routineId: integer('routine_id').notNull().references(() => routines.id, { onDelete: 'restrict' }),
+  /** 1 = Monday … 7 = Sunday */
+  weekday: integer('weekday').notNull(),
+  position: integer('position').notNull().default(0),
+  rules: text('rules', { mode: 'json' }).notNull().$type<ProgressionRule[]>().default(sql`'[]'`),
+  note: text('note').notNull().default(''),
+}, t => [
+  index('block_routines_block_idx').on(t.blockId),
+  index('block_routines_routine_idx').on(t.routineId),
+])
+
+export const blockTargets = sqliteTable('block_targets', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  blockId: integer('block_id').notNull().references(() => blocks.id, { onDelete: 'cascade' }),
+  athleteId: integer('athlete_id').references(() => users.id, { onDelete: 'cascade' }),
+  squadId: integer('squad_id').references(() => squads.id, { onDelete: 'cascade' }),
+}, t => [
+  index('block_targets_block_idx').on(t.blockId),
+  index('block_targets_athlete_idx').on(t.athleteId),
+  index('block_targets_squad_idx').on(t.squadId),
+])
+
+// A week of one routine set by hand: these numbers win over the rules and the week's scaling.
+export const blockWeekOverrides = sqliteTable('block_week_overrides', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  blockId: integer('block_id').notNull().references(() => blocks.id, { onDelete: 'cascade' }),
+  blockRoutineId: integer('block_routine_id').notNull().references(() => blockRoutines.id, { onDelete: 'cascade' }),
+  week: integer('week').notNull(),
+  values: text('values', { mode: 'json' }).notNull().$type<FieldOverride[]>(),
+  ...timestamps,
+}, t => [
+  uniqueIndex('block_week_overrides_unique').on(t.blockRoutineId, t.week),
+  index('block_week_overrides_block_idx').on(t.blockId),
+])
+
 export const assignments = sqliteTable('assignments', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
@@ -250,9 +314,15 @@ export const assignments = sqliteTable('assignments', {
   note: text('note').notNull().default(''),
   status: text('status', { enum: assignmentStatuses }).notNull().default('planned'),
   assignedById: integer('assigned_by_id').references(() => users.id, { onDelete: 'set null' }),
+  blockId: integer('block_id').references(() => blocks.id, { onDelete: 'set null' }),
+  blockWeek: integer('block_week'),
+  // Which routine slot of the block; no foreign key, so editing a block's slots never blocks on history.
+  blockRoutineId: integer('block_routine_id'),
   ...timestamps,
 }, t => [
   index('assignments_team_date_idx').on(t.teamId, t.date),
+  index('assignments_block_week_idx').on(t.blockId, t.blockWeek),
+  index('assignments_block_routine_idx').on(t.blockRoutineId),
   index('assignments_athlete_date_idx').on(t.athleteId, t.date),
   index('assignments_routine_idx').on(t.routineId),
   index('assignments_series_idx').on(t.seriesId),

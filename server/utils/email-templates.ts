@@ -76,6 +76,24 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
       html: layout(`${athlete} reported pain`, lines, { url, label: 'Open the pain report' }),
     }
   },
+  block_planned(payload) {
+    const coach = str(payload, 'coachName')
+    const block = str(payload, 'blockName')
+    const url = str(payload, 'url')
+    const dates = (Array.isArray(payload.dates) ? payload.dates : []).map(day => calendarDay(String(day)))
+    const count = dates.length === 1 ? 'one session' : `${dates.length} sessions`
+    const first = dates[0] ?? ''
+    const last = dates.at(-1) ?? ''
+    const intro = payload.replanned
+      ? `Hello ${str(payload, 'athleteName')}, ${coach} has updated the weeks ahead of "${block}" with ${str(payload, 'teamName')}: ${count} from ${first} to ${last}.`
+      : `Hello ${str(payload, 'athleteName')}, ${coach} has planned the training block "${block}" for you with ${str(payload, 'teamName')}: ${count} from ${first} to ${last}.`
+    const closing = 'Each week shows what changed from the week before. Open Switchback on the day for the steps, timings and cautions. You can turn these e-mails off on your Today page.'
+    return {
+      subject: `${payload.replanned ? 'Updated block' : 'New training block'}: ${block} (${count})`,
+      text: `${intro}\n\n${closing}\n\n${url}`,
+      html: layout(`Training block: ${block}`, [intro, closing], { url, label: 'See your block' }),
+    }
+  },
   password_reset(payload) {
     const url = str(payload, 'url')
     const lines = [

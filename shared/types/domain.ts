@@ -25,4 +25,17 @@ export interface AssignmentSnapshot {
   description: string
   steps: RoutineStep[]
   exercises: SnapshotExercise[]
+  /** Set when the session comes from a training block: which week, what kind, what changed. */
+  block?: SnapshotBlockWeek
+}
+
+export interface SnapshotBlockWeek {
+  id: number
+  name: string
+  week: number
+  weeks: number
+  kind: 'regular' | 'lighter' | 'taper'
+  /** From last week's session of the same routine slot, in plain words: "+1 round". */
+  changes: string[]
+  overridden: boolean
 }

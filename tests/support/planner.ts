@@ -3,7 +3,7 @@ import type { Stack } from './stack'
 
 /** Direct access to the test database, for rows another part of the app would write (routines, exercises, logs). */
 export function openTestDb(stack: Stack): Client {
-  return createClient({ url: stack.databaseUrl })
+  return createClient({ url: stack.databaseUrl, timeout: 5000 })
 }
 
 export async function insertExercise(db: Client, teamId: number, exercise: { name: string, category?: string, cues?: string[], cautions?: { text: string, bodyAreas: string[] }[] }) {

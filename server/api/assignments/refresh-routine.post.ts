@@ -1,4 +1,4 @@
-import { and, eq, inArray } from 'drizzle-orm'
+import { and, eq, inArray, isNull } from 'drizzle-orm'
 import { assignments, users } from '../../db/schema'
 import { refreshRoutineSchema } from '../../../shared/schemas/planner'
 import { todayIn } from '../../../shared/utils/dates'
@@ -14,7 +14,8 @@ export default defineEventHandler(async (event) => {
   const { routine, snapshot } = await snapshotRoutine(db, caller.teamId, routineId)
   const candidates = await db.select({ id: assignments.id, date: assignments.date, timezone: users.timezone })
     .from(assignments).innerJoin(users, eq(users.id, assignments.athleteId))
-    .where(and(eq(assignments.teamId, caller.teamId), eq(assignments.routineId, routine.id), eq(assignments.status, 'planned')))
+    // Block sessions carry their week's numbers; re-planning the block brings them the routine's latest version.
+    .where(and(eq(assignments.teamId, caller.teamId), eq(assignments.routineId, routine.id), eq(assignments.status, 'planned'), isNull(assignments.blockId)))
   const now = new Date()
   const ids = candidates.filter(row => row.date >= todayIn(row.timezone, now)).map(row => row.id)
   await db.transaction(async (tx) => {

@@ -34,6 +34,7 @@ export default defineEventHandler(async (event) => {
       title: snapshot.title,
       category: snapshot.category,
       exerciseCount: snapshot.exercises.length,
+      block: snapshot.block ?? null,
       shownStatus: shownStatus(row.status, row.date, today),
     })),
   }

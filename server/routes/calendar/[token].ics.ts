@@ -4,6 +4,7 @@ import { assignments, calendarFeeds, memberships, teams, users } from '../../db/
 import { shownStatus } from '../../../shared/utils/assignment-status'
 import { routineCategoryLabel, statusLabels } from '../../../shared/utils/vocabulary'
 import { addDays, dayToUtcDate, todayIn } from '../../../shared/utils/dates'
+import { blockWeekLine } from '../../../shared/utils/block-week'
 
 const FEED_PAST_DAYS = 60
 
@@ -45,6 +46,7 @@ export default defineEventHandler(async (event) => {
       summary: row.snapshot.title,
       description: [
         `${routineCategoryLabel(row.snapshot.category)} · ${status}`,
+        row.snapshot.block ? blockWeekLine(row.snapshot.block) : '',
         row.note ? `Note from your coach: ${row.note}` : '',
         url,
       ].filter(Boolean).join('\n\n'),

@@ -29,7 +29,7 @@ export default defineEventHandler(async (event) => {
   return {
     /** Exercises whose demo clip can be played now (the library's clip may have changed since the snapshot). */
     clipExerciseIds: withClips.map(row => row.id),
-    assignment: { id: assignment.id, date: assignment.date, note: assignment.note, status: assignment.status, routineId: assignment.routineId },
+    assignment: { id: assignment.id, date: assignment.date, note: assignment.note, status: assignment.status, routineId: assignment.routineId, block: assignment.snapshot.block ?? null },
     athlete: {
       name: context.athlete.name,
       units: context.profile?.units ?? 'km',
