@@ -16,6 +16,10 @@ export const assignmentStatuses = ['planned', 'done', 'partial', 'skipped'] as c
 export const teams = sqliteTable('teams', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   name: text('name').notNull(),
+  emergencyNumber: text('emergency_number'),
+  timezone: text('timezone').notNull().default('UTC'),
+  // When the head coach dismissed the first-run checklist on the coach's home.
+  checklistDismissedAt: integer('checklist_dismissed_at', { mode: 'timestamp_ms' }),
   ...timestamps,
 })
 
@@ -26,6 +30,8 @@ export const users = sqliteTable('users', {
   passwordHash: text('password_hash').notNull(),
   timezone: text('timezone').notNull().default('UTC'),
   notifyByEmail: integer('notify_by_email', { mode: 'boolean' }).notNull().default(true),
+  // When the athlete answered or skipped the first-visit questions.
+  welcomedAt: integer('welcomed_at', { mode: 'timestamp_ms' }),
   ...timestamps,
 }, t => [uniqueIndex('users_email_unique').on(t.email)])
 
@@ -176,10 +182,13 @@ export const exercises = sqliteTable('exercises', {
   cautions: text('cautions', { mode: 'json' }).notNull().$type<ExerciseCaution[]>().default(sql`'[]'`),
   clipId: integer('clip_id').references(() => mediaObjects.id, { onDelete: 'set null' }),
   posterId: integer('poster_id').references(() => mediaObjects.id, { onDelete: 'set null' }),
+  // Set on copies of the starter set: which starter exercise this is, so adding the set again skips it.
+  starterKey: text('starter_key'),
   archivedAt: integer('archived_at', { mode: 'timestamp_ms' }),
   createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
   ...timestamps,
 }, t => [
+  uniqueIndex('exercises_team_starter_unique').on(t.teamId, t.starterKey),
   index('exercises_team_category_idx').on(t.teamId, t.category),
   index('exercises_team_name_idx').on(t.teamId, t.name),
   index('exercises_clip_idx').on(t.clipId),
@@ -197,10 +206,12 @@ export const routines = sqliteTable('routines', {
   steps: text('steps', { mode: 'json' }).notNull().$type<RoutineStep[]>(),
   version: integer('version').notNull().default(1),
   isTemplate: integer('is_template', { mode: 'boolean' }).notNull().default(false),
+  starterKey: text('starter_key'),
   archivedAt: integer('archived_at', { mode: 'timestamp_ms' }),
   createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
   ...timestamps,
 }, t => [
+  uniqueIndex('routines_team_starter_unique').on(t.teamId, t.starterKey),
   index('routines_team_category_idx').on(t.teamId, t.category),
   index('routines_team_title_idx').on(t.teamId, t.title),
   index('routines_created_by_idx').on(t.createdById),
@@ -231,6 +242,20 @@ export const assignmentSeries = sqliteTable('assignment_series', {
   index('assignment_series_routine_idx').on(t.routineId),
   index('assignment_series_squad_idx').on(t.squadId),
   index('assignment_series_created_by_idx').on(t.createdById),
+])
+
+// One row per planning request that carried an idempotency key, so a repeated request returns the
+// first answer instead of planning the sessions twice.
+export const assignmentBatches = sqliteTable('assignment_batches', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  idempotencyKey: text('idempotency_key').notNull(),
+  result: text('result', { mode: 'json' }).$type<Record<string, unknown>>(),
+  createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  uniqueIndex('assignment_batches_team_key_unique').on(t.teamId, t.idempotencyKey),
+  index('assignment_batches_created_by_idx').on(t.createdById),
 ])
 
 export const assignments = sqliteTable('assignments', {

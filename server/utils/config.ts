@@ -12,6 +12,8 @@ const configSchema = z.object({
   s3AccessKeyId: z.string().default('S3RVER'),
   s3SecretAccessKey: z.string().default('S3RVER'),
   outboxIntervalMs: z.coerce.number().int().positive().default(2000),
+  // How long a notice of moved or removed sessions waits for more changes before it is sent.
+  planNoticeDelayMs: z.coerce.number().int().min(0).default(600_000),
 })
 
 export type AppConfig = z.infer<typeof configSchema>
@@ -32,6 +34,7 @@ export function useServerConfig(): AppConfig {
     s3AccessKeyId: process.env.S3_ACCESS_KEY_ID || undefined,
     s3SecretAccessKey: process.env.S3_SECRET_ACCESS_KEY || undefined,
     outboxIntervalMs: process.env.OUTBOX_INTERVAL_MS || undefined,
+    planNoticeDelayMs: process.env.PLAN_NOTICE_DELAY_MS || undefined,
   })
   return cached
 }
