@@ -202,8 +202,8 @@ describe('the starter set', () => {
     const again = await head.post<typeof first>('/api/team/starter-set')
     expect(again.status).toBe(200)
     expect(again.data).toEqual({ exercisesAdded: 0, routinesAdded: 0, clipsCopied: 0, clipsMissing: 0 })
-    const [{ n: exerciseCount }] = await rows<{ n: number }>('select count(*) as n from exercises where team_id = ?', [teamId])
-    expect(Number(exerciseCount)).toBe(first.exercisesAdded)
+    const [count] = await rows<{ n: number }>('select count(*) as n from exercises where team_id = ?', [teamId])
+    expect(Number(count!.n)).toBe(first.exercisesAdded)
 
     // The clips are the team's own objects, under its prefix in the store, and they play.
     const media = await rows<{ key: string, exercise_id: number }>('select key, exercise_id from media_objects where team_id = ? and status = \'ready\'', [teamId])
