@@ -299,3 +299,33 @@ describe('notices of moved and removed sessions', () => {
     expect(stack.mail.to(quiet.email).filter(message => /plan changed/.test(message.subject ?? ''))).toHaveLength(0)
   })
 })
+
+describe('an athlete\'s first visit', () => {
+  it('saves the answers given, records a skip, and refuses bad input field by field', async () => {
+    const { coach } = await registerCoach(stack, 'Welcome Wanderers')
+    const { athlete } = await addAthlete(stack, coach)
+    expect((await athlete.get<{ user: { welcomed: boolean } }>('/api/me')).data.user.welcomed).toBe(false)
+    const badZone = await athlete.post<FieldError>('/api/me/welcome', { timezone: 'Nowhere/Town' })
+    expect(badZone.status).toBe(400)
+    expect(badZone.data.data?.fields?.timezone).toMatch(/time zone/)
+    const halfResult = await athlete.post<FieldError>('/api/me/welcome', { benchmarkDistanceM: 5000 })
+    expect(halfResult.status).toBe(400)
+    expect(halfResult.data.data?.fields?.benchmarkTimeS).toMatch(/both/)
+    expect((await athlete.post<FieldError>('/api/me/welcome', { injury: { bodyArea: 'elbow' } })).status).toBe(400)
+    expect((await coach.post('/api/me/welcome', { skip: true })).status).toBe(403)
+    expect((await athlete.get<{ user: { welcomed: boolean } }>('/api/me')).data.user.welcomed).toBe(false)
+
+    const saved = await athlete.post('/api/me/welcome', { benchmarkDistanceM: 10000, benchmarkTimeS: 2580, units: 'mi', timezone: 'Europe/London', injury: { bodyArea: 'achilles', note: 'Stiff in the mornings' } })
+    expect(saved.status).toBe(200)
+    const me = await athlete.get<{ user: { welcomed: boolean, timezone: string } }>('/api/me')
+    expect(me.data.user).toMatchObject({ welcomed: true, timezone: 'Europe/London' })
+    const profile = await athlete.get<{ profile: { benchmarkDistanceM: number, units: string }, injuryNotes: { bodyArea: string, status: string }[] }>('/api/me/profile')
+    expect(profile.data.profile).toMatchObject({ benchmarkDistanceM: 10000, units: 'mi' })
+    expect(profile.data.injuryNotes).toEqual([expect.objectContaining({ bodyArea: 'achilles', status: 'active' })])
+
+    const other = await addAthlete(stack, coach, { name: 'Juno Halloway' })
+    expect((await other.athlete.post('/api/me/welcome', { skip: true, units: 'mi' })).status).toBe(200)
+    expect((await other.athlete.get<{ user: { welcomed: boolean } }>('/api/me')).data.user.welcomed).toBe(true)
+    expect((await other.athlete.get<{ profile: { units: string } }>('/api/me/profile')).data.profile.units).toBe('km')
+  })
+})
