@@ -44,7 +44,8 @@ describe('a new club in Chromium', () => {
     await coach.getByLabel('E-mail').fill(uniqueEmail('club'))
     await coach.getByLabel('Password').fill('a-good-long-password')
     await coach.getByLabel('Team or club name').fill('Larchford Ridge Runners')
-    expect(await coach.getByLabel('With the starter set').isChecked()).toBe(true)
+    expect(await coach.getByLabel('Empty').isChecked()).toBe(true)
+    await coach.getByLabel('With the starter set').check()
     await coach.getByRole('button', { name: 'Create team' }).click()
     await coach.waitForURL(/\/team$/)
 
@@ -133,7 +134,6 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('the planner
   it('shows the squads, renders only the rows in view, and moves a session', async () => {
     const team = await registerCoach(stack, `Big Squad Club ${size}`)
     const db = openTestDb(stack)
-    await db.execute('pragma busy_timeout = 5000')
     const monday = startOfWeek(todayIn('UTC'))
     // 80 athletes in two squads, written straight into the test database (the subject is the grid, not invitations).
     const squadIds: number[] = []
