@@ -88,9 +88,3 @@ export async function addStarterSet(db: Database, teamId: number, userId: number
   }
   return { exercisesAdded, routinesAdded, clipsCopied, clipsMissing }
 }
-
-/** Whether the team already holds the starter set (for the "add the starter set" buttons). */
-export async function hasStarterSet(db: Pick<Database, 'select'>, teamId: number) {
-  const [row] = await db.select({ id: exercises.id }).from(exercises).where(and(eq(exercises.teamId, teamId), isNotNull(exercises.starterKey))).limit(1)
-  return Boolean(row)
-}

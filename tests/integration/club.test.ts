@@ -4,6 +4,8 @@ import { linkIn } from '../support/mail-catcher'
 import { countRows, insertRoutine, openTestDb, outboxSettled } from '../support/planner'
 import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { createRoutine, insertHistory, insertPainFlag, openTestDatabase } from '../support/insights-data'
+import { addDays, todayIn } from '../../shared/utils/dates'
 
 let stack: Stack
 let db: ReturnType<typeof openTestDb>
@@ -329,5 +331,63 @@ describe('an athlete\'s first visit', () => {
     expect((await other.athlete.post('/api/me/welcome', { skip: true, units: 'mi' })).status).toBe(200)
     expect((await other.athlete.get<{ user: { welcomed: boolean } }>('/api/me')).data.user.welcomed).toBe(true)
     expect((await other.athlete.get<{ profile: { units: string } }>('/api/me/profile')).data.profile.units).toBe('km')
+  })
+})
+
+describe('the coach\'s home', () => {
+  it('answers in one request with flags newest first, yesterday and today per squad, the week ahead, ratios outside 0.8–1.3, invitations and the checklist', async () => {
+    const { coach, teamId } = await registerCoach(stack, 'Home Page Harriers')
+    const squad = await coach.post<{ id: number }>('/api/squads', { name: 'Road squad' })
+    const steady = await addAthlete(stack, coach, { name: 'Cai Penhallow', squadId: squad.data.id })
+    const spiking = await addAthlete(stack, coach, { name: 'Ffion Aske' })
+    const pendingEmail = uniqueEmail('pending')
+    await coach.post('/api/invites', { email: pendingEmail, role: 'athlete' })
+    const today = todayIn('UTC')
+    const history = await openTestDatabase(stack.databaseUrl)
+    const routine = await createRoutine(history, teamId)
+    // Cai: the same load every day for five weeks (ratio 1.0), trained today, missed yesterday.
+    const caiDays = Array.from({ length: 35 }, (_, daysAgo) => ({ daysAgo, done: daysAgo !== 1, load: 100 }))
+    const cai = await insertHistory(history, { teamId, athleteId: steady.userId, today, routine, days: [...caiDays, { daysAgo: -3, done: false }] })
+    // Ffion: light for four weeks, then three times the load this week. Rolling 7:28-day ratio (Hulin et al. 2014),
+    // worked by hand: 300 / ((7 × 300 + 21 × 100) / 28) = 2.0, above the 0.8–1.3 band cited by Gabbett (2016).
+    // Cai: 6 × 100 / 7 = 85.7 against 2700 / 28 = 96.4 → 0.89, inside it.
+    const ffionDays = Array.from({ length: 35 }, (_, daysAgo) => ({ daysAgo, done: true, load: daysAgo < 7 ? 300 : 100 }))
+    const ffion = await insertHistory(history, { teamId, athleteId: spiking.userId, today, routine, days: ffionDays })
+    await insertPainFlag(history, { teamId, athleteId: steady.userId, sessionId: cai.find(session => session.day === addDays(today, -3))!.id, pain: 6, area: 'knee' })
+    await insertPainFlag(history, { teamId, athleteId: spiking.userId, sessionId: ffion.find(session => session.day === today)!.id, pain: 7, area: 'shin' })
+    history.$client.close()
+
+    type Home = {
+      today: string
+      painFlags: { athleteName: string, day: string }[]
+      squads: { squadName: string, yesterday: { name: string, planned: number, trained: boolean }[], today: { name: string, trained: boolean }[] }[]
+      upcoming: { date: string, title: string, athletes: number }[]
+      ratios: { name: string, band: string, ratio: number }[]
+      invites: { email: string }[]
+      checklist: { dismissed: boolean, steps: { key: string, done: boolean }[] }
+    }
+    const home = await coach.get<Home>('/api/coach/home')
+    expect(home.status).toBe(200)
+    expect(home.data.today).toBe(today)
+    expect(home.data.painFlags.map(flag => flag.athleteName)).toEqual(['Ffion Aske', 'Cai Penhallow'])
+    const road = home.data.squads.find(group => group.squadName === 'Road squad')!
+    expect(road.yesterday).toEqual([expect.objectContaining({ name: 'Cai Penhallow', planned: 1, trained: false })])
+    expect(road.today).toEqual([expect.objectContaining({ name: 'Cai Penhallow', trained: true })])
+    expect(home.data.squads.find(group => group.squadName === 'No squad')!.today).toEqual([expect.objectContaining({ name: 'Ffion Aske', trained: true })])
+    expect(home.data.upcoming).toEqual([{ date: addDays(today, 3), title: 'Hill strength circuit', athletes: 1 }])
+    expect(home.data.ratios.map(row => [row.name, row.band])).toEqual([['Ffion Aske', 'high']])
+    expect(home.data.invites.map(invite => invite.email)).toEqual([pendingEmail])
+    const done = Object.fromEntries(home.data.checklist.steps.map(step => [step.key, step.done]))
+    expect(done).toEqual({ coaches: false, athletes: true, squads: true, library: true, routine: true, plan: true })
+
+    expect((await coach.post('/api/coach/checklist', { dismissed: true })).status).toBe(200)
+    expect((await coach.get<Home>('/api/coach/home')).data.checklist.dismissed).toBe(true)
+    expect((await coach.post<FieldError>('/api/coach/checklist', { dismissed: 'yes' })).status).toBe(400)
+    expect((await steady.athlete.get('/api/coach/home')).status).toBe(403)
+    // Another team's home shows none of it.
+    const other = await registerCoach(stack, 'Quiet Club')
+    const empty = await other.coach.get<Home>('/api/coach/home')
+    expect(empty.data.painFlags).toEqual([])
+    expect(empty.data.squads).toEqual([])
   })
 })
