@@ -60,6 +60,12 @@ export function usePlannerActions(refresh: () => Promise<unknown>) {
     await $fetch(`/api/assignments/${assignment.id}`, { method: 'PATCH', body: { date } })
     return `Moved ${assignment.athleteName}'s ${assignment.title} to ${formatDay(date)}.`
   })
+  /** The grid's move: to another day and/or another athlete of the team. */
+  const moveTo = (assignment: PlannedAssignment, to: { date: string, athleteId: number }, athleteName?: string) => run(async () => {
+    await $fetch(`/api/assignments/${assignment.id}`, { method: 'PATCH', body: to })
+    const who = to.athleteId === assignment.athleteId ? assignment.athleteName : (athleteName ?? 'another athlete')
+    return `Moved ${assignment.title} to ${who} on ${formatDay(to.date)}.`
+  })
   const saveNote = (assignment: PlannedAssignment, note: string) => run(async () => {
     await $fetch(`/api/assignments/${assignment.id}`, { method: 'PATCH', body: { note } })
     return 'Note saved.'
@@ -81,5 +87,5 @@ export function usePlannerActions(refresh: () => Promise<unknown>) {
     return `Updated ${result.updated} upcoming session${result.updated === 1 ? '' : 's'} to version ${result.version} of the routine.`
   })
 
-  return { message, error, busy: readonly(busy), move, saveNote, remove, removeRest, syncSquad, refreshRoutine }
+  return { message, error, busy: readonly(busy), move, moveTo, saveNote, remove, removeRest, syncSquad, refreshRoutine }
 }

@@ -5,8 +5,9 @@ export default defineNuxtRouteMiddleware((to) => {
   const { loggedIn, session } = useUserSession()
   const isPublic = publicPages.some(prefix => to.path === prefix || to.path.startsWith(`${prefix}/`)) || to.meta.public === true
   if (!loggedIn.value) {
-    if (isPublic) return
-    return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : undefined })
+    // `/` is the front page for signed-out visitors.
+    if (isPublic || to.path === '/') return
+    return navigateTo({ path: '/login', query: { next: to.fullPath } })
   }
   const isCoach = session.value?.role === 'coach' || session.value?.role === 'head_coach'
   if (to.path === '/login' || to.path === '/register' || to.path === '/') return navigateTo(isCoach ? '/coach' : '/today')

@@ -20,6 +20,9 @@ export const teams = sqliteTable('teams', {
   emergencyNumber: text('emergency_number'),
   // The smallest total change the team's plates allow; block loads round to it.
   plateIncrementKg: real('plate_increment_kg').notNull().default(2.5),
+  timezone: text('timezone').notNull().default('UTC'),
+  // When the head coach dismissed the first-run checklist on the coach's home.
+  checklistDismissedAt: integer('checklist_dismissed_at', { mode: 'timestamp_ms' }),
   ...timestamps,
 })
 
@@ -30,6 +33,8 @@ export const users = sqliteTable('users', {
   passwordHash: text('password_hash').notNull(),
   timezone: text('timezone').notNull().default('UTC'),
   notifyByEmail: integer('notify_by_email', { mode: 'boolean' }).notNull().default(true),
+  // When the athlete answered or skipped the first-visit questions.
+  welcomedAt: integer('welcomed_at', { mode: 'timestamp_ms' }),
   ...timestamps,
 }, t => [uniqueIndex('users_email_unique').on(t.email)])
 
@@ -184,10 +189,13 @@ export const exercises = sqliteTable('exercises', {
   cautions: text('cautions', { mode: 'json' }).notNull().$type<ExerciseCaution[]>().default(sql`'[]'`),
   clipId: integer('clip_id').references(() => mediaObjects.id, { onDelete: 'set null' }),
   posterId: integer('poster_id').references(() => mediaObjects.id, { onDelete: 'set null' }),
+  // Set on copies of the starter set: which starter exercise this is, so adding the set again skips it.
+  starterKey: text('starter_key'),
   archivedAt: integer('archived_at', { mode: 'timestamp_ms' }),
   createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
   ...timestamps,
 }, t => [
+  uniqueIndex('exercises_team_starter_unique').on(t.teamId, t.starterKey),
   index('exercises_team_category_idx').on(t.teamId, t.category),
   index('exercises_team_name_idx').on(t.teamId, t.name),
   index('exercises_clip_idx').on(t.clipId),
@@ -205,10 +213,12 @@ export const routines = sqliteTable('routines', {
   steps: text('steps', { mode: 'json' }).notNull().$type<RoutineStep[]>(),
   version: integer('version').notNull().default(1),
   isTemplate: integer('is_template', { mode: 'boolean' }).notNull().default(false),
+  starterKey: text('starter_key'),
   archivedAt: integer('archived_at', { mode: 'timestamp_ms' }),
   createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
   ...timestamps,
 }, t => [
+  uniqueIndex('routines_team_starter_unique').on(t.teamId, t.starterKey),
   index('routines_team_category_idx').on(t.teamId, t.category),
   index('routines_team_title_idx').on(t.teamId, t.title),
   index('routines_created_by_idx').on(t.createdById),
@@ -300,6 +310,20 @@ export const blockWeekOverrides = sqliteTable('block_week_overrides', {
 }, t => [
   uniqueIndex('block_week_overrides_unique').on(t.blockRoutineId, t.week),
   index('block_week_overrides_block_idx').on(t.blockId),
+])
+
+// One row per planning request that carried an idempotency key, so a repeated request returns the
+// first answer instead of planning the sessions twice.
+export const assignmentBatches = sqliteTable('assignment_batches', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  idempotencyKey: text('idempotency_key').notNull(),
+  result: text('result', { mode: 'json' }).$type<Record<string, unknown>>(),
+  createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  uniqueIndex('assignment_batches_team_key_unique').on(t.teamId, t.idempotencyKey),
+  index('assignment_batches_created_by_idx').on(t.createdById),
 ])
 
 export const assignments = sqliteTable('assignments', {

@@ -45,7 +45,8 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
     throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Your membership has ended; sign in again' })
   }
   if (rank[row.role] < rank[minimum]) {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: minimum === 'athlete' ? 'Not allowed' : 'Only coaches can do this' })
+    const message = minimum === 'head_coach' ? 'Only the head coach can do this' : minimum === 'coach' ? 'Only coaches can do this' : 'Not allowed'
+    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message })
   }
   event.context.caller = { userId: session.user.id, teamId: session.teamId, ...row }
   return event.context.caller as Caller
@@ -53,6 +54,11 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
 
 export async function requireCoach(event: H3Event) {
   return requireTeamRole(event, 'coach')
+}
+
+/** Team settings, coaches' memberships and roles, deleting the team. */
+export async function requireHeadCoach(event: H3Event) {
+  return requireTeamRole(event, 'head_coach')
 }
 
 /** The role in the session only shapes the client; every route re-reads it from the database. */

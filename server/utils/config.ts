@@ -14,6 +14,8 @@ const configSchema = z.object({
   outboxIntervalMs: z.coerce.number().int().positive().default(2000),
   mediaSweepIntervalMs: z.coerce.number().int().positive().default(10 * 60_000),
   healthCheckIntervalMs: z.coerce.number().int().positive().default(10_000),
+  // How long a notice of moved or removed sessions waits for more changes before it is sent.
+  planNoticeDelayMs: z.coerce.number().int().min(0).default(600_000),
 })
 
 export type AppConfig = z.infer<typeof configSchema>
@@ -36,6 +38,7 @@ export function useServerConfig(): AppConfig {
     outboxIntervalMs: process.env.OUTBOX_INTERVAL_MS || undefined,
     mediaSweepIntervalMs: process.env.MEDIA_SWEEP_INTERVAL_MS || undefined,
     healthCheckIntervalMs: process.env.HEALTH_CHECK_INTERVAL_MS || undefined,
+    planNoticeDelayMs: process.env.PLAN_NOTICE_DELAY_MS || undefined,
   })
   return cached
 }

@@ -94,6 +94,26 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
       html: layout(`Training block: ${block}`, [intro, closing], { url, label: 'See your block' }),
     }
   },
+  plan_changes(payload) {
+    const url = str(payload, 'url')
+    const changes = (Array.isArray(payload.changes) ? payload.changes : []) as { kind?: string, title?: string, from?: string, to?: string, count?: number }[]
+    const line = (change: typeof changes[number]) => {
+      const title = `"${change.title ?? 'a session'}"`
+      if (change.kind === 'moved') return `${title} moved from ${calendarDay(String(change.from))} to ${calendarDay(String(change.to))}`
+      if (change.kind === 'added') return `${title} added on ${calendarDay(String(change.to))}`
+      if (change.count && change.count > 1) return `${title}: ${change.count} sessions from ${calendarDay(String(change.from))} on removed`
+      return `${title} on ${calendarDay(String(change.from))} removed`
+    }
+    const intro = `Hello ${str(payload, 'athleteName')}, your plan with ${str(payload, 'teamName')} changed:`
+    const closing = 'You can turn these e-mails off on your Today page.'
+    const lines = changes.map(line)
+    const count = changes.length === 1 ? 'one change' : `${changes.length} changes`
+    return {
+      subject: `Your plan changed (${count})`,
+      text: `${intro}\n\n${lines.map(item => `- ${item}`).join('\n')}\n\n${closing}\n\n${url}`,
+      html: layout('Your plan changed', [intro, ...lines, closing], { url, label: 'See your plan' }),
+    }
+  },
   password_reset(payload) {
     const url = str(payload, 'url')
     const lines = [

@@ -6,7 +6,7 @@ import {
   compliance, RATIO_LOOKBACK_DAYS, ratiosOn, roundKg, roundLoad, roundVolume, weeklyLoads,
   type Compliance, type DailyLoad,
 } from '../../shared/utils/insights'
-import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
+import { addDays, daysBetween, startOfWeek, todayIn } from '../../shared/utils/dates'
 import { e1rmEpley, volumeLoad } from '../../shared/utils/strength'
 
 // An assignment counts as done when the athlete finished a session for it, or marked it done or partly done.
@@ -372,13 +372,22 @@ export async function strengthTrends(db: Database, teamId: number, athleteId: nu
 }
 
 /** Everything on one athlete's page; the athlete must be in `teamId` (callers check who may see it). */
+const CALENDAR_MAX_DAYS = 26 * 7
+
 export async function athleteInsights(db: Database, teamId: number, athleteId: number, weeks = 12, now = new Date()) {
   const athlete = await teamAthleteOrNull(db, teamId, athleteId)
   if (!athlete) return null
   const today = todayIn(athlete.timezone, now)
   const from = addDays(startOfWeek(today), -(weeks - 1) * 7)
-  const calendarFrom = addDays(startOfWeek(today), -5 * 7)
-  const calendarTo = addDays(startOfWeek(today), 6)
+  // The calendar covers the athlete's whole block: every planned session from up to 26 weeks back to
+  // 26 weeks ahead, and never less than the last five weeks and this one.
+  const [span] = await db.select({ first: sql<string | null>`min(${assignments.date})`, last: sql<string | null>`max(${assignments.date})` })
+    .from(assignments)
+    .where(and(eq(assignments.teamId, teamId), eq(assignments.athleteId, athleteId), between(assignments.date, addDays(today, -CALENDAR_MAX_DAYS), addDays(today, CALENDAR_MAX_DAYS))))
+  const defaultFrom = addDays(startOfWeek(today), -5 * 7)
+  const defaultTo = addDays(startOfWeek(today), 6)
+  const calendarFrom = span?.first && span.first < defaultFrom ? startOfWeek(span.first) : defaultFrom
+  const calendarTo = span?.last && span.last > defaultTo ? addDays(startOfWeek(span.last), 6) : defaultTo
   const [[bounds], loads, calendarRows, painRows, flags, strength, sessions] = await Promise.all([
     db.select({ firstDay: sql<string | null>`min(${sessionLogs.day})`, lastDay: sql<string | null>`max(${sessionLogs.day})` })
       .from(sessionLogs).where(and(eq(sessionLogs.athleteId, athleteId), eq(sessionLogs.teamId, teamId))),
@@ -404,7 +413,7 @@ export async function athleteInsights(db: Database, teamId: number, athleteId: n
     counts.set(row.date, count)
   }
   const sessionsByDay = new Map(daily.map(row => [row.day, row]))
-  const calendar = Array.from({ length: 42 }, (_, index) => {
+  const calendar = Array.from({ length: daysBetween(calendarFrom, calendarTo) + 1 }, (_, index) => {
     const day = addDays(calendarFrom, index)
     return {
       day,

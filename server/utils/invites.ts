@@ -34,3 +34,10 @@ export async function sendInvite(db: Pick<Database, 'insert' | 'update'>, invite
   })
   return { expiresAt }
 }
+
+/** Coaches invite athletes; inviting (or re-sending, withdrawing) a coach's invitation is the head coach's. */
+export function assertMayInvite(caller: { role: string }, role: string) {
+  if (role !== 'athlete' && caller.role !== 'head_coach') {
+    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: 'Only the head coach can invite coaches' })
+  }
+}

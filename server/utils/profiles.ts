@@ -10,7 +10,8 @@ import { trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
 /** The profile page's data: stored values, injury notes, and what the app derives from them. */
 export async function loadProfileView(db: Database, teamId: number, athlete: { id: number, name: string }) {
   const [[profile], notes] = await Promise.all([
-    db.select().from(athleteProfiles).where(and(eq(athleteProfiles.userId, athlete.id), eq(athleteProfiles.teamId, teamId))).limit(1),
+    // The profile is the person's own (one per athlete, whichever teams they are in); callers check membership.
+    db.select().from(athleteProfiles).where(eq(athleteProfiles.userId, athlete.id)).limit(1),
     db.select().from(injuryNotes).where(and(eq(injuryNotes.athleteId, athlete.id), eq(injuryNotes.teamId, teamId)))
       .orderBy(asc(injuryNotes.status), desc(injuryNotes.createdAt)),
   ])
@@ -56,7 +57,7 @@ export async function loadProfileView(db: Database, teamId: number, athlete: { i
 
 export async function saveProfile(db: Database, teamId: number, athleteId: number, patch: ProfilePatch) {
   await db.insert(athleteProfiles).values({ userId: athleteId, teamId, ...patch })
-    .onConflictDoUpdate({ target: athleteProfiles.userId, set: { ...patch, updatedAt: new Date() }, setWhere: eq(athleteProfiles.teamId, teamId) })
+    .onConflictDoUpdate({ target: athleteProfiles.userId, set: { ...patch, updatedAt: new Date() } })
 }
 
 export async function addInjuryNote(db: Database, teamId: number, athleteId: number, values: { bodyArea: string, note: string, since?: string | null, status: 'active' | 'resolved' }) {

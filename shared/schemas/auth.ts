@@ -7,6 +7,8 @@ export const registerSchema = z.object({
   email: emailSchema,
   password: passwordSchema,
   teamName: z.string({ error: 'Team name is required' }).trim().min(2, 'Team name needs at least 2 characters').max(100, 'Team name is at most 100 characters'),
+  /** Copy the starter library and routines into the new team (or start empty). */
+  starterSet: z.boolean({ error: 'Choose yes or no' }).default(false),
 })
 
 export const loginSchema = z.object({

@@ -27,6 +27,10 @@ export const assignSchema = z.object({
   note: note.default(''),
   /** A line for one athlete, added under the shared note. Keys are athlete ids. */
   athleteNotes: z.record(z.string().regex(/^\d+$/, 'Keys are athlete ids'), note).optional(),
+  /** Sessions the athlete already has on that day with the same routine are skipped unless this is true. */
+  confirmDuplicates: z.boolean({ error: 'Choose true or false' }).default(false),
+  /** A fresh value per intended batch: sending the same key again returns the first answer, planning nothing new. */
+  idempotencyKey: z.string().trim().min(8, 'Use at least 8 characters').max(100, 'Use at most 100 characters').regex(/^[\w-]+$/, 'Letters, digits, - and _ only').optional(),
 }).superRefine((value, ctx) => {
   if (!value.athleteIds?.length && !value.squadId) {
     ctx.addIssue({ code: 'custom', path: ['athleteIds'], message: 'Choose athletes or a squad' })
@@ -73,7 +77,9 @@ export const myAssignmentRangeSchema = z.object({
 export const assignmentPatchSchema = z.object({
   date: isoDateSchema.optional(),
   note: note.optional(),
-}).refine(value => value.date !== undefined || value.note !== undefined, { message: 'Change the date or the note', path: ['date'] })
+  /** Hands the session to another athlete of the team (the planner grid's drag between rows). */
+  athleteId: id.optional(),
+}).refine(value => value.date !== undefined || value.note !== undefined || value.athleteId !== undefined, { message: 'Change the date, the athlete or the note', path: ['date'] })
 
 export const restOfSeriesQuerySchema = z.object({
   /** `all`: every athlete in the series; otherwise only this assignment's athlete. */

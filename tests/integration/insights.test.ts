@@ -147,7 +147,11 @@ describe('athlete page', () => {
     const inWeek = doneDays(tamsinDays).filter(day => day.day >= lastFull.weekStart && day.day <= addDays(lastFull.weekStart, 6))
     expect(lastFull.sessions).toBe(inWeek.length)
     expect(lastFull.load).toBe(Math.round(inWeek.length * 123.4))
-    expect(data.calendar).toHaveLength(42)
+    // The calendar covers the whole block, in whole weeks: from the week of the first planned session
+    // (41 days ago) to the end of the week of the last one (the day after tomorrow).
+    expect(data.calendar[0]!.day).toBe(startOfWeek(addDays(today, -41)))
+    expect(data.calendar.at(-1)!.day).toBe(addDays(startOfWeek(addDays(today, 2)), 6))
+    expect(data.calendar.length % 7).toBe(0)
     const tomorrow = data.calendar.find(day => day.day === addDays(today, 1))
     if (tomorrow) expect(tomorrow.assignments).toEqual([expect.objectContaining({ done: false })])
     expect(data.calendar.find(day => day.day === today)!.assignments[0]!.done).toBe(true)

@@ -3,6 +3,7 @@ import type { Stack } from './stack'
 
 /** Direct access to the test database, for rows another part of the app would write (routines, exercises, logs). */
 export function openTestDb(stack: Stack): Client {
+  // A busy timeout, so a write here waits for the app server's writes instead of failing with SQLITE_BUSY.
   return createClient({ url: stack.databaseUrl, timeout: 5000 })
 }
 

@@ -1,12 +1,33 @@
-import { assignmentSeries } from '../../db/schema'
+import { and, eq, inArray } from 'drizzle-orm'
+import { assignmentBatches, assignments, assignmentSeries } from '../../db/schema'
 import { assignSchema } from '../../../shared/schemas/planner'
 import { seriesDates } from '../../../shared/utils/dates'
 
-/** Assigns a routine to athletes and/or a squad on dates or a weekly repeat: one transaction, one e-mail per athlete. */
+interface BatchResult {
+  created: number
+  ids: number[]
+  seriesId: number | null
+  dates: string[]
+  athleteIds: number[]
+  /** Sessions left out because the athlete already had this routine that day (send `confirmDuplicates` to plan them). */
+  skipped: { athleteId: number, name: string, date: string }[]
+}
+
+/**
+ * Assigns a routine to athletes and/or a squad on dates or a weekly repeat: one transaction, one e-mail per athlete.
+ * The same routine again for the same athlete and day is skipped unless confirmed; a repeated idempotency key
+ * returns the first batch's answer.
+ */
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)
   const body = await readBodyWith(event, assignSchema)
   const db = await useDb()
+
+  if (body.idempotencyKey) {
+    const [done] = await db.select({ result: assignmentBatches.result }).from(assignmentBatches)
+      .where(and(eq(assignmentBatches.teamId, caller.teamId), eq(assignmentBatches.idempotencyKey, body.idempotencyKey))).limit(1)
+    if (done) return { ...(done.result as unknown as BatchResult), repeated: true }
+  }
 
   const ids = new Set(body.athleteIds ?? [])
   if (body.squadId) {
@@ -27,7 +48,20 @@ export default defineEventHandler(async (event) => {
 
   const { routine, snapshot } = await snapshotRoutine(db, caller.teamId, body.routineId)
 
-  const created = await db.transaction(async (tx) => {
+  const existing = body.confirmDuplicates || !athletes.length
+    ? []
+    : await db.select({ athleteId: assignments.athleteId, date: assignments.date }).from(assignments)
+        .where(and(eq(assignments.teamId, caller.teamId), eq(assignments.routineId, routine.id), inArray(assignments.athleteId, athletes.map(athlete => athlete.id)), inArray(assignments.date, dates)))
+  const taken = new Set(existing.map(row => `${row.athleteId} ${row.date}`))
+  const skipped = athletes.flatMap(athlete => dates.filter(date => taken.has(`${athlete.id} ${date}`)).map(date => ({ athleteId: athlete.id, name: athlete.name, date })))
+
+  const result = await db.transaction(async (tx) => {
+    if (body.idempotencyKey) {
+      // The unique (team, key) index makes a simultaneous second request fail here instead of planning twice.
+      const claimed = await tx.insert(assignmentBatches).values({ teamId: caller.teamId, idempotencyKey: body.idempotencyKey, createdById: caller.userId })
+        .onConflictDoNothing().returning({ id: assignmentBatches.id })
+      if (!claimed.length) throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This plan is already being saved' })
+    }
     let seriesId: number | null = null
     if (body.series) {
       const [series] = await tx.insert(assignmentSeries).values({
@@ -49,11 +83,20 @@ export default defineEventHandler(async (event) => {
       routine,
       snapshot,
       seriesId,
-      plan: athletes.map(athlete => ({ athlete, dates, note: combineNotes(body.note, body.athleteNotes?.[String(athlete.id)]) })),
+      plan: athletes.map(athlete => ({
+        athlete,
+        dates: dates.filter(date => !taken.has(`${athlete.id} ${date}`)),
+        note: combineNotes(body.note, body.athleteNotes?.[String(athlete.id)]),
+      })),
     })
-    return { seriesId, ids: assignmentIds }
+    const result: BatchResult = { created: assignmentIds.length, ids: assignmentIds, seriesId, dates, athleteIds: athletes.map(athlete => athlete.id), skipped }
+    if (body.idempotencyKey) {
+      await tx.update(assignmentBatches).set({ result: result as unknown as Record<string, unknown> })
+        .where(and(eq(assignmentBatches.teamId, caller.teamId), eq(assignmentBatches.idempotencyKey, body.idempotencyKey)))
+    }
+    return result
   })
 
   setResponseStatus(event, 201)
-  return { created: created.ids.length, ids: created.ids, seriesId: created.seriesId, dates, athleteIds: athletes.map(athlete => athlete.id) }
+  return { ...result, repeated: false }
 })

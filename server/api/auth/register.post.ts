@@ -17,6 +17,7 @@ export default defineEventHandler(async (event) => {
     return { user: user!, team: team! }
   })
   await signIn(event, user, team.id, 'head_coach')
+  const starterSet = input.starterSet ? await addStarterSet(db, team.id, user.id) : null
   setResponseStatus(event, 201)
-  return { user: { id: user.id, name: user.name, email: user.email }, team: { id: team.id, name: team.name }, role: 'head_coach' as const }
+  return { user: { id: user.id, name: user.name, email: user.email }, team: { id: team.id, name: team.name }, role: 'head_coach' as const, starterSet }
 })

@@ -5,6 +5,7 @@ import { invites, memberships, squads, users } from '../../db/schema'
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)
   const input = await readBodyWith(event, inviteSchema)
+  assertMayInvite(caller, input.role)
   const db = await useDb()
   if (input.squadId) {
     const [squad] = await db.select({ id: squads.id }).from(squads).where(and(eq(squads.id, input.squadId), eq(squads.teamId, caller.teamId))).limit(1)

@@ -24,6 +24,7 @@ export default defineEventHandler(async (event) => {
       description: routine.description,
       version: routine.version,
       isTemplate: routine.isTemplate,
+      isStarter: routine.starterKey !== null,
       archivedAt: routine.archivedAt,
       updatedAt: routine.updatedAt,
       stepCount: routine.steps.length,

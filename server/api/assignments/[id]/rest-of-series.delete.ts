@@ -17,13 +17,22 @@ export default defineEventHandler(async (event) => {
   if (!assignment.seriesId) {
     throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'id: This assignment is not part of a weekly series', data: { fields: { id: 'This assignment is not part of a weekly series' } } })
   }
-  const removed = await db.delete(assignments).where(and(
-    eq(assignments.teamId, caller.teamId),
-    eq(assignments.seriesId, assignment.seriesId),
-    gte(assignments.date, assignment.date),
-    who === 'athlete' ? eq(assignments.athleteId, assignment.athleteId) : undefined,
-    eq(assignments.status, 'planned'),
-    notExists(db.select({ id: sessionLogs.id }).from(sessionLogs).where(eq(sessionLogs.assignmentId, assignments.id))),
-  )).returning({ id: assignments.id })
+  const removed = await db.transaction(async (tx) => {
+    const removed = await tx.delete(assignments).where(and(
+      eq(assignments.teamId, caller.teamId),
+      eq(assignments.seriesId, assignment.seriesId!),
+      gte(assignments.date, assignment.date),
+      who === 'athlete' ? eq(assignments.athleteId, assignment.athleteId) : undefined,
+      eq(assignments.status, 'planned'),
+      notExists(tx.select({ id: sessionLogs.id }).from(sessionLogs).where(eq(sessionLogs.assignmentId, assignments.id))),
+    )).returning({ id: assignments.id, athleteId: assignments.athleteId, date: assignments.date })
+    // One line per athlete in their notice: how many sessions went, from which day.
+    const people = await athletesById(tx, caller.teamId, [...new Set(removed.map(row => row.athleteId))])
+    for (const athlete of people) {
+      const dates = removed.filter(row => row.athleteId === athlete.id).map(row => row.date).sort()
+      await queuePlanChange(tx, { teamId: caller.teamId, teamName: caller.teamName, athlete, change: { kind: 'removed', title: assignment.snapshot.title, from: dates[0], count: dates.length } })
+    }
+    return removed
+  })
   return { removed: removed.length, ids: removed.map(row => row.id) }
 })

@@ -6,6 +6,8 @@ export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)
   const { id } = paramsWith(event, idParamsSchema)
   const db = await useDb()
+  const [invite] = await db.select({ role: invites.role }).from(invites).where(and(eq(invites.id, id), eq(invites.teamId, caller.teamId))).limit(1)
+  if (invite) assertMayInvite(caller, invite.role)
   const revoked = await db.update(invites).set({ revokedAt: new Date() })
     .where(and(eq(invites.id, id), eq(invites.teamId, caller.teamId), isNull(invites.acceptedAt), isNull(invites.revokedAt)))
     .returning({ id: invites.id })

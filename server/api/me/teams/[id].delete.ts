@@ -1,0 +1,21 @@
+import { idParamsSchema } from '../../../../shared/schemas/common'
+
+/** Leaves one of the caller's teams. The last head coach hands the team over (or deletes it) first. */
+export default defineEventHandler(async (event) => {
+  const caller = await requireTeamRole(event)
+  const { id } = paramsWith(event, idParamsSchema)
+  const db = await useDb()
+  const mine = await teamsOf(db, caller.userId)
+  const team = mine.find(row => row.id === id)
+  if (!team) notFound('You are not in that team')
+  if (team.role === 'head_coach' && await headCoachCount(db, id, caller.userId) === 0) {
+    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'You are this team\'s only head coach: make someone else head coach, or delete the team' })
+  }
+  await endMembership(db, id, caller.userId, { anonymise: false })
+  const next = mine.find(row => row.id !== id)
+  if (id === caller.teamId) {
+    if (next) await signIn(event, { id: caller.userId, name: caller.name, email: caller.email }, next.id, next.role)
+    else await clearUserSession(event)
+  }
+  return { team: next && id === caller.teamId ? { id: next.id, name: next.name, role: next.role } : null }
+})
