@@ -178,3 +178,42 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('every page 
     }
   })
 })
+
+describe('navigation on a phone', () => {
+  const visible = (page: Page, name: string) => page.getByRole('link', { name, exact: true }).isVisible()
+
+  it('shows a coach every destination from the menu, and closes it with Escape back onto its button', async () => {
+    const page = await (await contextFor('coach', 'phone')).newPage()
+    await page.goto(`${stack.url}/routines`)
+    const menu = page.getByRole('button', { name: 'Menu' })
+    expect(await menu.getAttribute('aria-expanded')).toBe('false')
+    expect(await visible(page, 'Insights')).toBe(false)
+    await menu.click()
+    for (const name of ['Overview', 'Library', 'Routines', 'Planner', 'Insights', 'Team']) expect(await visible(page, name), name).toBe(true)
+    expect(await page.getByRole('link', { name: 'Routines', exact: true }).getAttribute('aria-current')).toBe('page')
+    await page.keyboard.press('Escape')
+    expect(await visible(page, 'Insights')).toBe(false)
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('aria-controls'))).toBe('main-menu')
+    await menu.click()
+    await page.getByRole('link', { name: 'Team', exact: true }).click()
+    await page.waitForURL(/\/team$/)
+    expect(await visible(page, 'Insights')).toBe(false)
+    await page.close()
+  })
+
+  it('keeps an athlete\'s four destinations in a bar at the bottom of the screen', async () => {
+    const page = await (await contextFor('athlete', 'phone')).newPage()
+    await page.goto(`${stack.url}/today`)
+    const bar = page.getByRole('navigation', { name: 'Main, at the bottom' })
+    for (const name of ['Today', 'Logbook', 'Progress', 'Profile']) {
+      const box = await bar.getByRole('link', { name, exact: true }).boundingBox()
+      expect(box, name).not.toBeNull()
+      expect(box!.y + box!.height).toBeGreaterThan(viewports.phone.height - 80)
+      expect(box!.height).toBeGreaterThanOrEqual(44)
+    }
+    await bar.getByRole('link', { name: 'Logbook', exact: true }).click()
+    await page.waitForURL(/\/logbook$/)
+    await expect.poll(() => bar.getByRole('link', { name: 'Logbook', exact: true }).getAttribute('aria-current')).toBe('page')
+    await page.close()
+  })
+})
