@@ -166,7 +166,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('every page 
       await page.waitForLoadState('networkidle')
       // Where the visit ended up (a signed-out visitor is sent to sign in) is part of what is checked.
       const overflow = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, inner: window.innerWidth }))
-      const slug = `${as}${url.replace(/\/\w{20,}$/, '/token').replace(/[^\w]+/g, '-')}-${size}`
+      const slug = `${as}${path.replace(/[^\w]+/g, '-')}-${size}`
       await page.screenshot({ path: screenshotPath(`pages-${slug}`), fullPage: true })
       const violations = await axeViolations(page)
       expect.soft(overflow.scroll, `page is ${overflow.scroll}px wide in a ${overflow.inner}px window`).toBeLessThanOrEqual(overflow.inner)
