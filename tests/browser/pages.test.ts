@@ -8,7 +8,8 @@ import { linkIn } from '../support/mail-catcher'
 import { hillSteps } from '../support/planner'
 import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
-import { todayIn } from '../../shared/utils/dates'
+import { formatDate } from '../../shared/utils/date-format'
+import { addDays, todayIn } from '../../shared/utils/dates'
 
 // Every page, at a phone's width and a laptop's, signed out, as a coach and as an athlete.
 // To cover a new page, add a row: `{path}` placeholders are filled from the team made in beforeAll.
@@ -215,5 +216,29 @@ describe('navigation on a phone', () => {
     await page.waitForURL(/\/logbook$/)
     await expect.poll(() => bar.getByRole('link', { name: 'Logbook', exact: true }).getAttribute('aria-current')).toBe('page')
     await page.close()
+  })
+})
+
+describe('dates in the reader\'s language and time zone', () => {
+  it('renders the logbook the same on the server and in a German browser far from UTC', async () => {
+    const context = await browser.newContext({ viewport: viewports.phone, locale: 'de-DE', timezoneId: 'Pacific/Auckland' })
+    const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email: people.athlete!.email, password: PASSWORD } })
+    expect(response.status()).toBe(200)
+    for (const visit of ['first', 'second']) {
+      const page = await context.newPage()
+      const problems: string[] = []
+      page.on('console', (message) => {
+        if (message.type() === 'error' || /hydrat/i.test(message.text())) problems.push(message.text())
+      })
+      await page.goto(`${stack.url}/logbook`, { waitUntil: 'networkidle' })
+      const yesterday = addDays(todayIn('UTC'), -1)
+      // The calendar day of the session, in German words: "Di., 1. Dez. 2026".
+      await page.getByText(formatDate(yesterday, 'day', { locale: 'de-DE', timeZone: 'Pacific/Auckland' })).first().waitFor()
+      expect(problems, `${visit} visit`).toEqual([])
+      await page.close()
+    }
+    // The browser told the server its zone for next time.
+    expect(decodeURIComponent((await context.cookies()).find(cookie => cookie.name === 'switchback-tz')?.value ?? '')).toBe('Pacific/Auckland')
+    await context.close()
   })
 })

@@ -185,7 +185,10 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await page.getByText('No routine matches.').waitFor()
     await page.getByLabel('Category').selectOption({ label: 'Hills' })
     await page.getByLabel('Search').fill('other tab')
-    await expect.poll(() => page.locator('tbody tr').count()).toBe(1)
+    // A table on a desktop, cards on a phone: either way one visible routine, and nothing wider than the screen.
+    await expect.poll(() => page.locator('[data-routine-id]:visible').count()).toBe(1)
+    expect(await page.locator(size === 'phone' ? 'li[data-routine-id]' : 'tr[data-routine-id]').first().isVisible()).toBe(true)
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(viewports[size].width)
     await page.screenshot({ path: screenshotPath(`routine-list-${size}`), fullPage: true })
     await page.goto(`${stack.url}/routines/${routineId}/print`)
     await page.getByRole('heading', { name: 'Ridge Lane hills, from the other tab' }).waitFor()
