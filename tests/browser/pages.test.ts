@@ -146,6 +146,29 @@ async function axeViolations(page: Page) {
   return violations.filter(v => v.impact === 'serious' || v.impact === 'critical')
 }
 
+/**
+ * Controls a thumb must hit, smaller than 44 × 44 CSS px. Links inside running text are exempt (WCAG 2.5.8's
+ * inline exception), as are checkboxes and radios whose label around them is the target.
+ */
+async function smallTargets(page: Page) {
+  return page.evaluate(() => {
+    const found: string[] = []
+    for (const element of document.querySelectorAll<HTMLElement>('a[href], button, select, input:not([type="hidden"]), textarea, summary, [role="button"]')) {
+      const box = element.getBoundingClientRect()
+      // Nothing to hit, or visually hidden on purpose (the skip link until focused, a styled file input).
+      if (box.width <= 1 || box.height <= 1 || getComputedStyle(element).visibility === 'hidden') continue
+      if (element.closest('[aria-hidden="true"], [inert]')) continue
+      if (element.tagName === 'A' && getComputedStyle(element).display === 'inline') continue
+      const label = element.closest('label')
+      const target = label && ['checkbox', 'radio'].includes((element as HTMLInputElement).type) ? label.getBoundingClientRect() : box
+      if (Math.round(target.width) < 44 || Math.round(target.height) < 44) {
+        found.push(`${element.tagName.toLowerCase()} "${(element.getAttribute('aria-label') ?? element.textContent ?? '').trim().slice(0, 40)}" ${Math.round(target.width)}×${Math.round(target.height)}`)
+      }
+    }
+    return found
+  })
+}
+
 describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('every page at %s width', (size) => {
   it.each(pages)('$path as $as', async ({ path, as }) => {
     const context = await contextFor(as, size)
@@ -170,9 +193,11 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('every page 
       const slug = `${as}${path.replace(/[^\w]+/g, '-')}-${size}`
       await page.screenshot({ path: screenshotPath(`pages-${slug}`), fullPage: true })
       const violations = await axeViolations(page)
+      const small = size === 'phone' ? await smallTargets(page) : []
       expect.soft(overflow.scroll, `page is ${overflow.scroll}px wide in a ${overflow.inner}px window`).toBeLessThanOrEqual(overflow.inner)
       expect.soft(violations, JSON.stringify(violations, null, 1)).toEqual([])
       expect.soft(problems).toEqual([])
+      expect.soft(small, 'touch targets under 44 × 44 px on a phone').toEqual([])
     }
     finally {
       await page.close()
