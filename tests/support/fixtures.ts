@@ -19,6 +19,8 @@ export class Fixtures {
   readonly client: Client
   constructor(stack: Stack) {
     this.client = createClient({ url: stack.databaseUrl })
+    // The app server writes to the same file (its outbox runs every 200 ms in tests): wait for its lock.
+    void this.client.execute('PRAGMA busy_timeout = 10000')
   }
 
   async exercise(teamId: number, exercise: ExerciseFixture) {
