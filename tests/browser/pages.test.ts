@@ -223,7 +223,7 @@ describe('navigation on a phone', () => {
     await menu.click()
     await page.getByRole('link', { name: 'Team', exact: true }).click()
     await page.waitForURL(/\/team$/)
-    expect(await visible(page, 'Insights')).toBe(false)
+    await expect.poll(() => visible(page, 'Insights')).toBe(false)
     await page.close()
   })
 
@@ -265,5 +265,29 @@ describe('dates in the reader\'s language and time zone', () => {
     // The browser told the server its zone for next time.
     expect(decodeURIComponent((await context.cookies()).find(cookie => cookie.name === 'switchback-tz')?.value ?? '')).toBe('Pacific/Auckland')
     await context.close()
+  })
+})
+
+describe('our own confirmation dialog', () => {
+  it('asks before withdrawing an invitation, keeps focus inside and gives it back', async () => {
+    const page = await (await contextFor('coach', 'phone')).newPage()
+    await page.goto(`${stack.url}/team`, { waitUntil: 'networkidle' })
+    const withdraw = page.getByRole('button', { name: 'Withdraw' }).first()
+    await withdraw.focus()
+    await page.keyboard.press('Enter')
+    const dialog = page.getByRole('dialog', { name: /Withdraw the invitation for pending\./ })
+    await dialog.waitFor()
+    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Cancel')
+    for (let i = 0; i < 3; i++) {
+      await page.keyboard.press('Tab')
+      expect(await page.evaluate(() => Boolean(document.activeElement?.closest('dialog')))).toBe(true)
+    }
+    await page.keyboard.press('Escape')
+    await dialog.waitFor({ state: 'hidden' })
+    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Withdraw')
+    await withdraw.click()
+    await dialog.getByRole('button', { name: 'Withdraw' }).click()
+    await page.getByText(/no longer works/).waitFor()
+    await page.close()
   })
 })
