@@ -25,5 +25,7 @@ export function useDates() {
   }
 
   const format = (value: string | number | Date | null | undefined, style: DateStyle = 'day') => (value === null || value === undefined || value === '' ? '—' : formatDate(value, style, prefs.value))
-  return { prefs: readonly(prefs), format }
+  /** A calendar day in the reader's words, with or without the year (the same options as `formatDay`). */
+  const day = (value: string, { year = true } = {}) => format(value, year ? 'day' : 'dayShort')
+  return { prefs: readonly(prefs), format, day }
 }
