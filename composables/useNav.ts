@@ -1,36 +1,50 @@
 import { plural } from '#shared/utils/vocabulary'
+import type { Component } from 'vue'
+import { CalendarCheck, CalendarDays, CalendarRange, ChartLine, LayoutDashboard, Library, ListOrdered, NotebookPen, TrendingUp, UserRound, Users } from 'lucide-vue-next'
 
 export interface NavLink {
   to: string
   label: string
   /** A count shown beside the label, with words for screen readers. */
   badge?: { count: number, label: string }
+  icon: Component
 }
 
 /** The main navigation for the signed-in role. */
 export function useNav() {
   const { session, loggedIn } = useUserSession()
   const openPainFlags = useOpenPainFlagCount()
+  const route = useRoute()
+  const isCoach = computed(() => session.value?.role === 'coach' || session.value?.role === 'head_coach')
   const links = computed<NavLink[]>(() => {
     if (!loggedIn.value) return []
-    const role = session.value?.role
-    if (role === 'coach' || role === 'head_coach') {
+    if (isCoach.value) {
       return [
-        { to: '/coach', label: 'Overview' },
-        { to: '/exercises', label: 'Library' },
-        { to: '/routines', label: 'Routines' },
-        { to: '/planner', label: 'Planner' },
-        { to: '/blocks', label: 'Blocks' },
-        { to: '/insights', label: 'Insights', badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
-        { to: '/team', label: 'Team' },
+        { to: '/coach', label: 'Overview', icon: LayoutDashboard },
+        { to: '/exercises', label: 'Library', icon: Library },
+        { to: '/routines', label: 'Routines', icon: ListOrdered },
+        { to: '/planner', label: 'Planner', icon: CalendarDays },
+        { to: '/blocks', label: 'Blocks', icon: CalendarRange },
+        { to: '/insights', label: 'Insights', icon: ChartLine, badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
+        { to: '/team', label: 'Team', icon: Users },
       ]
     }
     return [
-      { to: '/today', label: 'Today' },
-      { to: '/logbook', label: 'Logbook' },
-      { to: '/progress', label: 'Progress' },
-      { to: '/profile', label: 'Profile' },
+      { to: '/today', label: 'Today', icon: CalendarCheck },
+      { to: '/logbook', label: 'Logbook', icon: NotebookPen },
+      { to: '/progress', label: 'Progress', icon: TrendingUp },
+      { to: '/profile', label: 'Profile', icon: UserRound },
     ]
   })
-  return { links }
+  const isCurrent = (link: NavLink) => route.path === link.to || route.path.startsWith(`${link.to}/`)
+  /**
+   * On phones athletes get a bar at the bottom (four destinations fit under the thumb) and coaches a
+   * menu (six do not). A running session keeps the whole bottom edge for its own controls.
+   */
+  const phoneStyle = computed<'bar' | 'menu' | 'none'>(() => {
+    if (!links.value.length) return 'none'
+    if (isCoach.value) return 'menu'
+    return route.path.startsWith('/session/') ? 'none' : 'bar'
+  })
+  return { links, isCurrent, phoneStyle }
 }

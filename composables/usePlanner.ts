@@ -1,5 +1,4 @@
 import type { ShownStatus } from '#shared/utils/vocabulary'
-import { formatDay } from '#shared/utils/dates'
 
 export interface PlannedAssignment {
   id: number
@@ -36,6 +35,7 @@ export function plannerErrorMessage(error: unknown) {
 
 /** The planner's changes to existing assignments, each answering with a message to show. */
 export function usePlannerActions(refresh: () => Promise<unknown>) {
+  const { day: formatDay } = useDates()
   const message = ref('')
   const error = ref('')
   const busy = ref(false)

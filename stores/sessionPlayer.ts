@@ -4,6 +4,7 @@ import type { FinishInput } from '#shared/schemas/session'
 import type { SnapshotBlockWeek } from '#shared/types/domain'
 import { SessionClock, type ClockChange, type ClockSnapshot, type ClockState } from '#shared/utils/session-clock'
 import type { PlanSegment, SessionPlan } from '#shared/utils/session-plan'
+import { carryLoadForward } from '#shared/utils/session-load'
 import { useSessionOutboxStore } from './sessionOutbox'
 
 export interface PlayerPlan {
@@ -171,6 +172,7 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
     const idempotencyKey = `${clientId.value}:${segment.key}`
     const earlier = logged.value[segment.key]
     logged.value = { ...logged.value, [segment.key]: { ...values, key: segment.key, idempotencyKey, label: segment.label, set: segment.set, round: segment.round } }
+    drafts.value = { ...drafts.value, ...carryLoadForward(segments.value, change.from, values.kg, drafts.value, logged.value) }
     if (earlier) {
       outbox.enqueue({ kind: 'patch', clientId: clientId.value, idempotencyKey, values: strip(values) })
       return
@@ -233,7 +235,10 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   function act(action: 'pause' | 'resume' | 'skip' | 'back' | 'done' | 'end') {
     if (!clock) return
     if (action === 'pause') clock.pause()
-    else if (action === 'resume') clock.resume()
+    else if (action === 'resume') {
+      clock.resume()
+      resumed.value = false
+    }
     else handle(clock[action]())
     state.value = clock.state()
     persist()

@@ -62,7 +62,13 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await page.waitForURL(/\/routines\/new$/)
     await page.getByRole('heading', { name: 'New routine' }).waitFor()
 
+    // Nothing is flagged on a fresh page; leaving the empty title flags it, typing one clears it.
+    expect(await page.locator('.field-error').count()).toBe(0)
+    await page.getByLabel('Title').focus()
+    await page.keyboard.press('Tab')
+    await expect.poll(() => page.locator('.field-error').count()).toBe(1)
     await page.getByLabel('Title').fill('Ridge Lane hill reps')
+    await expect.poll(() => page.locator('.field-error').count()).toBe(0)
     await page.getByRole('button', { name: '+ Easy start' }).click()
     await expect.poll(() => totalTime(page)).toBe('10:00')
     // The cool-down goes in before the repeat on purpose: it is dragged into place below.
@@ -115,6 +121,15 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     }
     await expect.poll(() => rootOrder(page)).toEqual(['Easy start', '8 rounds', 'Easy finish'])
     await expect.poll(() => totalTime(page)).toBe('40:00')
+    if (size === 'phone') {
+      // Folded cards keep to their summaries; the totals stay in sight at the bottom; the buttons fit a thumb.
+      const bar = (await page.getByTestId('totals-bar').boundingBox())!
+      expect(bar.y + bar.height).toBeLessThanOrEqual(viewports.phone.height + 1)
+      expect(await page.getByTestId('totals-bar').textContent()).toMatch(/Total\s*40:00/)
+      const up = (await page.getByRole('button', { name: 'Move Cool-down up' }).boundingBox())!
+      expect(Math.min(up.width, up.height)).toBeGreaterThanOrEqual(44)
+      expect(await page.getByRole('button', { name: 'Remove Cool-down' }).isVisible()).toBe(false)
+    }
     await page.screenshot({ path: screenshotPath(`routine-builder-${size}`), fullPage: true })
 
     // Leaving with unsaved work asks first; saying no keeps the draft.
@@ -170,7 +185,10 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await page.getByText('No routine matches.').waitFor()
     await page.getByLabel('Category').selectOption({ label: 'Hills' })
     await page.getByLabel('Search').fill('other tab')
-    await expect.poll(() => page.locator('tbody tr').count()).toBe(1)
+    // A table on a desktop, cards on a phone: either way one visible routine, and nothing wider than the screen.
+    await expect.poll(() => page.locator('[data-routine-id]:visible').count()).toBe(1)
+    expect(await page.locator(size === 'phone' ? 'li[data-routine-id]' : 'tr[data-routine-id]').first().isVisible()).toBe(true)
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(viewports[size].width)
     await page.screenshot({ path: screenshotPath(`routine-list-${size}`), fullPage: true })
     await page.goto(`${stack.url}/routines/${routineId}/print`)
     await page.getByRole('heading', { name: 'Ridge Lane hills, from the other tab' }).waitFor()

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { launchBrowser, newContext, screenshotPath } from '../support/browser'
+import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
 import { Fixtures } from '../support/fixtures'
 import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
@@ -98,6 +98,11 @@ describe('the session player', () => {
 
     // The warm-up runs out by itself; the squats wait for Done.
     await waitForStep(page, 'Goblet squat')
+    // The controls stay on screen under the thumb, below the set's fields, and the change is announced.
+    const controls = (await page.getByTestId('player-controls').boundingBox())!
+    expect(controls.y + controls.height).toBeLessThanOrEqual(viewports.phone.height)
+    expect(controls.y).toBeGreaterThan(viewports.phone.height / 2)
+    expect(await page.getByTestId('step-announcement').textContent()).toMatch(/Step \d+ of \d+: Goblet squat/)
     expect(await page.getByTestId('step-caution').textContent()).toMatch(/Your injury note: Keep the knees/)
     expect(await page.getByTestId('next-step').textContent()).toMatch(/Rest/)
     await page.screenshot({ path: screenshotPath('session-running-phone'), fullPage: true })
@@ -136,7 +141,8 @@ describe('the session player', () => {
     expect(stored.finishedAt).not.toBeNull()
     expect(stored.sessionRpe).toBe(6)
     const sets = stored.entries.map(entry => [entry.stepId, entry.set, entry.reps, entry.kg])
-    expect(sets).toEqual([['squat', 1, 7, 18], ['squat', 2, 8, 16], ['plank', 1, null, null], ['plank', 2, null, null], ['step', null, null, null]])
+    // The second set started from the load logged for the first, not the prescribed 16 kg.
+    expect(sets).toEqual([['squat', 1, 7, 18], ['squat', 2, 8, 18], ['plank', 1, null, null], ['plank', 2, null, null], ['step', null, null, null]])
     for (const entry of stored.entries.filter(item => item.stepId !== 'squat')) expect(entry.seconds).toBeCloseTo(40, 0)
     const [assignment] = await fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
     expect(assignment!.status).toBe('done')
@@ -170,10 +176,31 @@ describe('the session player', () => {
     await waitForStep(page, 'Goblet squat')
     await page.keyboard.press('Space')
     expect(await page.getByTestId('pause-button').textContent()).toMatch(/Pause/)
+    // Once resumed, the welcome-back note has done its job.
+    await page.getByText(/Welcome back: the session is paused/).waitFor({ state: 'detached' })
     await page.keyboard.press('Enter')
     await waitForStep(page, 'Rest')
     // The repeated set 1 went through the same idempotency key: one row on the server.
     await expect.poll(async () => (await logbookFor(id))?.entries.filter(entry => entry.stepId === 'squat' && entry.set === 1).length, { timeout: 10_000 }).toBe(1)
+
+    // Ending early asks in our own dialog: focus starts on the safe choice, Escape keeps going and gives
+    // focus back to the button, and confirming goes on to the finish form.
+    await page.keyboard.press('Space')
+    const end = page.getByRole('button', { name: 'End session' })
+    await end.focus()
+    await page.keyboard.press('Enter')
+    const dialog = page.getByRole('dialog', { name: 'End the session now?' })
+    await dialog.waitFor()
+    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Keep going')
+    await page.keyboard.press('Tab')
+    await page.keyboard.press('Tab')
+    expect(await page.evaluate(() => document.activeElement?.closest('dialog') !== null)).toBe(true)
+    await page.keyboard.press('Escape')
+    await dialog.waitFor({ state: 'hidden' })
+    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('End session')
+    await end.click()
+    await dialog.getByRole('button', { name: 'End session' }).click()
+    await page.getByRole('heading', { name: 'Well done — how did it go?' }).waitFor()
     await context.close()
   })
 
