@@ -37,3 +37,8 @@ export const squadMembersSchema = z.object({
 })
 
 export const tokenParamsSchema = z.object({ token: z.string().min(20, 'Link is not valid').max(200, 'Link is not valid') })
+
+export const changePasswordSchema = z.object({
+  currentPassword: z.string({ error: 'Current password is required' }).min(1, 'Current password is required').max(200, 'Password is too long'),
+  newPassword: passwordSchema,
+})

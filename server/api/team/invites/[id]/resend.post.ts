@@ -9,6 +9,7 @@ export default defineEventHandler(async (event) => {
   const [invite] = await db.select().from(invites)
     .where(and(eq(invites.id, id), eq(invites.teamId, caller.teamId), isNull(invites.acceptedAt), isNull(invites.revokedAt))).limit(1)
   if (!invite) notFound('No such pending invitation')
+  await takeAllowance(mailRules(invite.email, clientAddress(event), caller.teamId))
   const { expiresAt } = await db.transaction(tx => sendInvite(tx, invite, caller.name, caller.teamName))
   return { id: invite.id, expiresAt }
 })
