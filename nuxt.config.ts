@@ -3,7 +3,7 @@ import { resolve } from 'node:path'
 
 export default defineNuxtConfig({
   // Root-level layout: keep Nuxt from switching to an `app/` folder if one ever appears.
-  modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils'],
+  modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils', 'nuxt-security'],
   imports: { dirs: ['stores', 'composables'] },
   devtools: { enabled: false },
   app: {
@@ -33,6 +33,63 @@ export default defineNuxtConfig({
       // The built server migrates its database at start, so it ships the migrations beside itself.
       async compiled(nitro) {
         await cp(resolve(nitro.options.rootDir, 'server/db/migrations'), resolve(nitro.options.output.serverDir, 'migrations'), { recursive: true })
+      },
+    },
+  },
+  // Private answers are never stored by browsers or proxies.
+  routeRules: {
+    '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': "default-src 'none'; frame-ancestors 'none'" } },
+    '/calendar/**': { headers: { 'cache-control': 'no-store' } },
+    '/exports/**': { headers: { 'cache-control': 'no-store' } },
+  },
+  // Security headers from nuxt-security. The object store's origin, HSTS and upgrade-insecure-requests
+  // depend on the deployment, so server/plugins/security-headers.ts adds them at run time from the config.
+  // The module's own rate limiter, size limiter, XSS filter and CORS handler are off on purpose: the
+  // limits live in the database (server/utils/rate-limit.ts, throttle.ts) so they hold across replicas,
+  // the body cap counts bytes while reading (server/middleware/01.body-limit.ts), zod checks input, and
+  // no other origin may call the API. See docs/security.md.
+  security: {
+    nonce: true,
+    removeLoggers: false,
+    rateLimiter: false,
+    requestSizeLimiter: false,
+    xssValidator: false,
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+    hidePoweredBy: true,
+    headers: {
+      // Clips and posters come from the object store's origin; cross-origin isolation is not needed.
+      crossOriginEmbedderPolicy: false,
+      crossOriginOpenerPolicy: 'same-origin',
+      crossOriginResourcePolicy: 'same-origin',
+      contentSecurityPolicy: {
+        'default-src': ["'self'"],
+        'base-uri': ["'none'"],
+        'object-src': ["'none'"],
+        'frame-ancestors': ["'none'"],
+        'form-action': ["'self'"],
+        'script-src': ["'self'", "'strict-dynamic'", "'nonce-{{nonce}}'"],
+        'script-src-attr': ["'none'"],
+        // Vue binds inline style attributes (progress bars, the timeline), which need 'unsafe-inline'.
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'media-src': ["'self'", 'blob:'],
+        'connect-src': ["'self'"],
+        'font-src': ["'self'", 'data:'],
+        'worker-src': ["'self'"],
+        'manifest-src': ["'self'"],
+        'upgrade-insecure-requests': false,
+      },
+      referrerPolicy: 'no-referrer',
+      strictTransportSecurity: false,
+      xContentTypeOptions: 'nosniff',
+      xFrameOptions: 'DENY',
+      permissionsPolicy: {
+        'camera': [],
+        'display-capture': [],
+        'fullscreen': ['self'],
+        'geolocation': [],
+        'microphone': [],
       },
     },
   },
