@@ -26,6 +26,12 @@ export default defineNuxtConfig({
   },
   srcDir: '.',
   serverDir: 'server',
+  // Private answers are never stored by browsers or proxies.
+  routeRules: {
+    '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': 'default-src \'none\'; frame-ancestors \'none\'' } },
+    '/calendar/**': { headers: { 'cache-control': 'no-store' } },
+    '/exports/**': { headers: { 'cache-control': 'no-store' } },
+  },
   compatibilityDate: '2026-01-01',
   nitro: {
     experimental: { tasks: false },
@@ -36,12 +42,9 @@ export default defineNuxtConfig({
       },
     },
   },
-  // Private answers are never stored by browsers or proxies.
-  routeRules: {
-    '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': "default-src 'none'; frame-ancestors 'none'" } },
-    '/calendar/**': { headers: { 'cache-control': 'no-store' } },
-    '/exports/**': { headers: { 'cache-control': 'no-store' } },
-  },
+  typescript: { strict: true },
+  telemetry: false,
+  eslint: { config: { stylistic: true } },
   // Security headers from nuxt-security. The object store's origin, HSTS and upgrade-insecure-requests
   // depend on the deployment, so server/plugins/security-headers.ts adds them at run time from the config.
   // The module's own rate limiter, size limiter, XSS filter and CORS handler are off on purpose: the
@@ -63,21 +66,21 @@ export default defineNuxtConfig({
       crossOriginOpenerPolicy: 'same-origin',
       crossOriginResourcePolicy: 'same-origin',
       contentSecurityPolicy: {
-        'default-src': ["'self'"],
-        'base-uri': ["'none'"],
-        'object-src': ["'none'"],
-        'frame-ancestors': ["'none'"],
-        'form-action': ["'self'"],
-        'script-src': ["'self'", "'strict-dynamic'", "'nonce-{{nonce}}'"],
-        'script-src-attr': ["'none'"],
+        'default-src': ['\'self\''],
+        'base-uri': ['\'none\''],
+        'object-src': ['\'none\''],
+        'frame-ancestors': ['\'none\''],
+        'form-action': ['\'self\''],
+        'script-src': ['\'self\'', '\'strict-dynamic\'', '\'nonce-{{nonce}}\''],
+        'script-src-attr': ['\'none\''],
         // Vue binds inline style attributes (progress bars, the timeline), which need 'unsafe-inline'.
-        'style-src': ["'self'", "'unsafe-inline'"],
-        'img-src': ["'self'", 'data:', 'blob:'],
-        'media-src': ["'self'", 'blob:'],
-        'connect-src': ["'self'"],
-        'font-src': ["'self'", 'data:'],
-        'worker-src': ["'self'"],
-        'manifest-src': ["'self'"],
+        'style-src': ['\'self\'', '\'unsafe-inline\''],
+        'img-src': ['\'self\'', 'data:', 'blob:'],
+        'media-src': ['\'self\'', 'blob:'],
+        'connect-src': ['\'self\''],
+        'font-src': ['\'self\'', 'data:'],
+        'worker-src': ['\'self\''],
+        'manifest-src': ['\'self\''],
         'upgrade-insecure-requests': false,
       },
       referrerPolicy: 'no-referrer',
@@ -93,7 +96,4 @@ export default defineNuxtConfig({
       },
     },
   },
-  typescript: { strict: true },
-  telemetry: false,
-  eslint: { config: { stylistic: true } },
 })
