@@ -29,7 +29,6 @@ export default defineNuxtConfig({
   // Private answers are never stored by browsers or proxies.
   routeRules: {
     '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': 'default-src \'none\'; frame-ancestors \'none\'' } },
-    '/calendar/**': { headers: { 'cache-control': 'no-store' } },
     '/exports/**': { headers: { 'cache-control': 'no-store' } },
   },
   compatibilityDate: '2026-01-01',

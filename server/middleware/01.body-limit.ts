@@ -6,9 +6,7 @@ const MAX_BODY_BYTES = 1_000_000
 const payloadMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 const tooLarge = 'The request body is larger than 1 MB'
 
-function refuse(event: H3Event): never {
-  // Stop reading and close the connection once the answer has gone, rather than swallow the rest.
-  setResponseHeader(event, 'connection', 'close')
+function refuse(): never {
   throw createError({ statusCode: 413, statusMessage: 'Payload too large', message: tooLarge, data: { fields: { _: tooLarge } } })
 }
 
@@ -21,8 +19,10 @@ function readCapped(event: H3Event): Promise<Buffer> {
     const onData = (chunk: Buffer) => {
       size += chunk.length
       if (size > MAX_BODY_BYTES) {
+        // Keep nothing more; the rest of the upload is read and dropped while the 413 goes out.
         request.off('data', onData)
-        request.pause()
+        chunks.length = 0
+        request.resume()
         reject(new Error('too large'))
         return
       }
@@ -37,7 +37,7 @@ function readCapped(event: H3Event): Promise<Buffer> {
 export default defineEventHandler(async (event) => {
   if (!event.path.startsWith('/api/')) return
   const length = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (length > MAX_BODY_BYTES) refuse(event)
+  if (length > MAX_BODY_BYTES) refuse()
   const chunked = /\bchunked\b/i.test(getRequestHeader(event, 'transfer-encoding') ?? '')
   if (!chunked || !payloadMethods.has(event.method)) return
   try {
@@ -45,6 +45,6 @@ export default defineEventHandler(async (event) => {
     event._requestBody = new Uint8Array(await readCapped(event))
   }
   catch {
-    refuse(event)
+    refuse()
   }
 })

@@ -33,6 +33,11 @@ export class ApiClient {
     return { status: response.status, headers: response.headers, data: data as T, text }
   }
 
+  /** The Cookie header this client sends. */
+  cookieHeader() {
+    return [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ')
+  }
+
   /** A second client carrying this one's cookies now: a copied cookie, as a thief or another tab would hold it. */
   copy() {
     const twin = new ApiClient(this.baseUrl, this.headers)
