@@ -16,7 +16,9 @@ export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> 
     const file = url.slice('file:'.length)
     mkdirSync(dirname(resolve(file)), { recursive: true })
   }
-  const client = createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN })
+  // The client pools connections and opens more as requests overlap; `timeout` is the busy timeout on
+  // each of them (the PRAGMA below reaches only the first), so concurrent writers wait, not fail.
+  const client = createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN, timeout: 5000 })
   if (url.startsWith('file:')) {
     await client.execute('PRAGMA journal_mode = WAL')
     await client.execute('PRAGMA busy_timeout = 5000')

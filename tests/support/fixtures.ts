@@ -18,7 +18,7 @@ export interface ExerciseFixture {
 export class Fixtures {
   readonly client: Client
   constructor(stack: Stack) {
-    this.client = createClient({ url: stack.databaseUrl })
+    this.client = createClient({ url: stack.databaseUrl, timeout: 5000 })
   }
 
   async exercise(teamId: number, exercise: ExerciseFixture) {
