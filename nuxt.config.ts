@@ -3,7 +3,7 @@ import { resolve } from 'node:path'
 
 export default defineNuxtConfig({
   // Root-level layout: keep Nuxt from switching to an `app/` folder if one ever appears.
-  modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils', '@vite-pwa/nuxt'],
+  modules: ['@nuxt/eslint', '@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils', '@vite-pwa/nuxt', 'nuxt-security'],
   imports: { dirs: ['stores', 'composables'] },
   devtools: { enabled: false },
   app: {
@@ -30,9 +30,14 @@ export default defineNuxtConfig({
   },
   srcDir: '.',
   serverDir: 'server',
-  // The app shell the service worker opens athlete pages from when there is no network: rendered in
-  // the browser, so it carries no one's data and reads everything from the worker's cache.
-  routeRules: { '/offline-shell': { ssr: false } },
+  routeRules: {
+    // The app shell the service worker opens athlete pages from when there is no network: rendered in
+    // the browser, so it carries no one's data and reads everything from the worker's cache.
+    '/offline-shell': { ssr: false },
+    // Private answers are never stored by browsers or proxies.
+    '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': 'default-src \'none\'; frame-ancestors \'none\'' } },
+    '/exports/**': { headers: { 'cache-control': 'no-store' } },
+  },
   compatibilityDate: '2026-01-01',
   nitro: {
     // Scripts, styles and fonts go out pre-compressed (brotli and gzip), chosen by Accept-Encoding.
@@ -90,6 +95,57 @@ export default defineNuxtConfig({
       // Rendered by the server at install time, so it carries this server's runtime settings.
       additionalManifestEntries: [{ url: '/offline-shell', revision: String(Date.now()) }],
       rollupFormat: 'iife',
+    },
+  },
+  // Security headers from nuxt-security. The object store's origin, HSTS and upgrade-insecure-requests
+  // depend on the deployment, so server/plugins/security-headers.ts adds them at run time from the config.
+  // The module's own rate limiter, size limiter, XSS filter and CORS handler are off on purpose: the
+  // limits live in the database (server/utils/rate-limit.ts, throttle.ts) so they hold across replicas,
+  // the body cap counts bytes while reading (server/middleware/01.body-limit.ts), zod checks input, and
+  // no other origin may call the API. See docs/security.md.
+  security: {
+    nonce: true,
+    removeLoggers: false,
+    rateLimiter: false,
+    requestSizeLimiter: false,
+    xssValidator: false,
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+    hidePoweredBy: true,
+    headers: {
+      // Clips and posters come from the object store's origin; cross-origin isolation is not needed.
+      crossOriginEmbedderPolicy: false,
+      crossOriginOpenerPolicy: 'same-origin',
+      crossOriginResourcePolicy: 'same-origin',
+      contentSecurityPolicy: {
+        'default-src': ['\'self\''],
+        'base-uri': ['\'none\''],
+        'object-src': ['\'none\''],
+        'frame-ancestors': ['\'none\''],
+        'form-action': ['\'self\''],
+        'script-src': ['\'self\'', '\'strict-dynamic\'', '\'nonce-{{nonce}}\''],
+        'script-src-attr': ['\'none\''],
+        // Vue binds inline style attributes (progress bars, the timeline), which need 'unsafe-inline'.
+        'style-src': ['\'self\'', '\'unsafe-inline\''],
+        'img-src': ['\'self\'', 'data:', 'blob:'],
+        'media-src': ['\'self\'', 'blob:'],
+        'connect-src': ['\'self\''],
+        'font-src': ['\'self\'', 'data:'],
+        'worker-src': ['\'self\''],
+        'manifest-src': ['\'self\''],
+        'upgrade-insecure-requests': false,
+      },
+      referrerPolicy: 'no-referrer',
+      strictTransportSecurity: false,
+      xContentTypeOptions: 'nosniff',
+      xFrameOptions: 'DENY',
+      permissionsPolicy: {
+        'camera': [],
+        'display-capture': [],
+        'fullscreen': ['self'],
+        'geolocation': [],
+        'microphone': [],
+      },
     },
   },
 })

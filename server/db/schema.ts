@@ -1,5 +1,5 @@
 import { relations, sql } from 'drizzle-orm'
-import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
+import { foreignKey, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import type { RoutineStep } from '../../shared/utils/timeline'
 import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
 import { assignmentStatuses, exerciseCategories, injuryStatuses, invitableRoles, painFlagReasons, painFlagStatuses, roles, routineCategories } from '../../shared/utils/vocabulary'
@@ -130,6 +130,30 @@ export const passwordResets = sqliteTable('password_resets', {
   uniqueIndex('password_resets_token_unique').on(t.tokenHash),
   index('password_resets_user_idx').on(t.userId),
 ])
+
+// One row per sign-in. The sealed cookie carries only a random id; its hash is kept here, so signing
+// out, a password change or a reset can end sessions on the server. Rows hang off the membership, so
+// removing someone from a team ends their sessions there by itself.
+export const authSessions = sqliteTable('auth_sessions', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  tokenHash: text('token_hash').notNull(),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+  ...timestamps,
+}, t => [
+  uniqueIndex('auth_sessions_token_unique').on(t.tokenHash),
+  index('auth_sessions_user_team_idx').on(t.userId, t.teamId),
+  index('auth_sessions_team_idx').on(t.teamId),
+  foreignKey({ columns: [t.teamId, t.userId], foreignColumns: [memberships.teamId, memberships.userId], name: 'auth_sessions_membership_fk' }).onDelete('cascade'),
+])
+
+// Rate-limit hits (e-mails sent, etc.) by key, in the database so limits hold across app replicas.
+export const rateEvents = sqliteTable('rate_events', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  key: text('key').notNull(),
+  at: integer('at', { mode: 'timestamp_ms' }).notNull(),
+}, t => [index('rate_events_key_at_idx').on(t.key, t.at)])
 
 // Failed sign-ins, kept in the database so throttling holds across app replicas.
 export const loginFailures = sqliteTable('login_failures', {

@@ -1,7 +1,7 @@
 import { and, eq, isNotNull } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { athleteProfiles, entryLogs, injuryNotes, users } from '../db/schema'
-import { trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
+import { trainingPacesOrNull, type TrainingPaces } from '../../shared/utils/pace'
 import { e1rmEpley } from '../../shared/utils/strength'
 
 export interface AthleteContext {
@@ -33,7 +33,8 @@ export async function loadAthleteContext(db: Database, teamId: number, athleteId
   }
   const profile = row.profile
   const paces = profile?.benchmarkDistanceM && profile.benchmarkTimeS
-    ? trainingPaces({ distanceM: profile.benchmarkDistanceM, timeS: profile.benchmarkTimeS })
+    // An implausible benchmark saved before it was checked gives no paces rather than an error.
+    ? trainingPacesOrNull({ distanceM: profile.benchmarkDistanceM, timeS: profile.benchmarkTimeS })
     : null
   return { athlete: { id: row.id, name: row.name, timezone: row.timezone }, profile, paces, injuryNotes: notes, estimatedMaxKg }
 }

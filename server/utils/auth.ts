@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
-import { and, eq } from 'drizzle-orm'
+import { and, eq, gt } from 'drizzle-orm'
 import type { Role } from '../../shared/utils/vocabulary'
-import { memberships, teams, users } from '../db/schema'
+import { authSessions, memberships, teams, users } from '../db/schema'
 
 const rank: Record<Role, number> = { athlete: 0, coach: 1, head_coach: 2 }
 
@@ -25,24 +25,32 @@ export function isCoachRole(role: Role) {
  */
 export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete'): Promise<Caller> {
   const session = await getUserSession(event)
-  if (!session.user || !session.teamId) {
+  const sid = session.secure?.sid
+  if (!session.user || !session.teamId || typeof sid !== 'string') {
     throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Sign in first' })
   }
   const db = await useDb()
+  // One lookup: the live sign-in row, the membership it is for, the person and the team.
   const [row] = await db.select({
     role: memberships.role,
     name: users.name,
     email: users.email,
     timezone: users.timezone,
     teamName: teams.name,
-  }).from(memberships)
+  }).from(authSessions)
+    .innerJoin(memberships, and(eq(memberships.userId, authSessions.userId), eq(memberships.teamId, authSessions.teamId)))
     .innerJoin(users, eq(users.id, memberships.userId))
     .innerJoin(teams, eq(teams.id, memberships.teamId))
-    .where(and(eq(memberships.userId, session.user.id), eq(memberships.teamId, session.teamId)))
+    .where(and(
+      eq(authSessions.tokenHash, hashToken(sid)),
+      eq(authSessions.userId, session.user.id),
+      eq(authSessions.teamId, session.teamId),
+      gt(authSessions.expiresAt, new Date()),
+    ))
     .limit(1)
   if (!row) {
     await clearUserSession(event)
-    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Your membership has ended; sign in again' })
+    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Your session has ended; sign in again' })
   }
   if (rank[row.role] < rank[minimum]) {
     const message = minimum === 'head_coach' ? 'Only the head coach can do this' : minimum === 'coach' ? 'Only coaches can do this' : 'Not allowed'
@@ -61,7 +69,19 @@ export async function requireHeadCoach(event: H3Event) {
   return requireTeamRole(event, 'head_coach')
 }
 
-/** The role in the session only shapes the client; every route re-reads it from the database. */
+/**
+ * Starts a sign-in: a new server-side session row, and a sealed cookie carrying only its random id
+ * (plus the name and role that shape the client). Any sign-in this browser had before ends.
+ * The role in the cookie only shapes the client; every route re-reads it from the database.
+ */
 export async function signIn(event: H3Event, user: { id: number, name: string, email: string }, teamId: number, role: Role) {
-  await replaceUserSession(event, { user: { id: user.id, name: user.name, email: user.email }, teamId, role, loggedInAt: Date.now() })
+  const previous = await currentSid(event)
+  if (previous) await endSignIn(previous)
+  const sid = await startSignIn(user.id, teamId)
+  await replaceUserSession(event, { user: { id: user.id, name: user.name, email: user.email }, teamId, role, loggedInAt: Date.now(), secure: { sid } })
+}
+
+/** Signs the caller out here and ends that session on the server. */
+export async function signOut(event: H3Event) {
+  await clearUserSession(event)
 }

@@ -5,7 +5,7 @@ import { athleteProfiles, injuryNotes } from '../db/schema'
 import type { ProfilePatch } from '../../shared/schemas/profile'
 import { isUnder18 } from '../../shared/utils/age'
 import { hrMaxTanaka } from '../../shared/utils/heart'
-import { trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
+import { benchmarkProblem, trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
 
 /** The profile page's data: stored values, injury notes, and what the app derives from them. */
 export async function loadProfileView(db: Database, teamId: number, athlete: { id: number, name: string }) {
@@ -56,6 +56,17 @@ export async function loadProfileView(db: Database, teamId: number, athlete: { i
 }
 
 export async function saveProfile(db: Database, teamId: number, athleteId: number, patch: ProfilePatch) {
+  // The benchmark as it will be after this change must be one the pace equations can use.
+  if (patch.benchmarkDistanceM !== undefined || patch.benchmarkTimeS !== undefined) {
+    const [stored] = await db.select({ distanceM: athleteProfiles.benchmarkDistanceM, timeS: athleteProfiles.benchmarkTimeS })
+      .from(athleteProfiles).where(and(eq(athleteProfiles.userId, athleteId), eq(athleteProfiles.teamId, teamId))).limit(1)
+    const distanceM = patch.benchmarkDistanceM !== undefined ? patch.benchmarkDistanceM : stored?.distanceM ?? null
+    const timeS = patch.benchmarkTimeS !== undefined ? patch.benchmarkTimeS : stored?.timeS ?? null
+    const problem = distanceM && timeS ? benchmarkProblem({ distanceM, timeS }) : null
+    if (problem) {
+      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `benchmarkTimeS: ${problem}`, data: { fields: { benchmarkTimeS: problem, _: problem } } })
+    }
+  }
   await db.insert(athleteProfiles).values({ userId: athleteId, teamId, ...patch })
     .onConflictDoUpdate({ target: athleteProfiles.userId, set: { ...patch, updatedAt: new Date() } })
 }

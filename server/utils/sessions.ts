@@ -1,7 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
-import type { entryLogs } from '../db/schema'
-import { assignments, memberships, sessionLogs, users } from '../db/schema'
+import { assignments, entryLogs, memberships, sessionLogs, users } from '../db/schema'
 import type { Caller } from './auth'
 import { EDIT_WINDOW_DAYS } from '../../shared/schemas/session'
 
@@ -89,4 +88,19 @@ export async function findTeamAthlete(db: Database, teamId: number, athleteId: n
     .where(eq(users.id, athleteId)).limit(1)
   if (!row) notFound('No such athlete')
   return row
+}
+
+/**
+ * Entries may arrive after a session was finished (the player's offline queue sends them late); they
+ * are accepted within the edit window and the assignment's done/partial status is worked out again.
+ */
+export async function refreshFinishedStatus(db: Database, teamId: number, session: { id: number, assignmentId: number, finishedAt: Date | null }) {
+  if (!session.finishedAt) return
+  const [assignment] = await db.select({ id: assignments.id, snapshot: assignments.snapshot, status: assignments.status }).from(assignments)
+    .where(and(eq(assignments.id, session.assignmentId), eq(assignments.teamId, teamId))).limit(1)
+  if (!assignment || (assignment.status !== 'done' && assignment.status !== 'partial')) return
+  const entries = await db.select({ stepId: entryLogs.stepId, set: entryLogs.set, round: entryLogs.round }).from(entryLogs).where(eq(entryLogs.sessionId, session.id))
+  const logged = new Set(entries.map(entryKey))
+  const status = loggableKeys(assignment.snapshot).every(segment => logged.has(segment.key)) ? 'done' : 'partial'
+  if (status !== assignment.status) await db.update(assignments).set({ status }).where(and(eq(assignments.id, assignment.id), eq(assignments.teamId, teamId)))
 }

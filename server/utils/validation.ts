@@ -22,9 +22,32 @@ export async function readBodyWith<S extends z.ZodType>(event: H3Event, schema: 
   catch {
     throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The request body is not valid JSON', data: { fields: { _: 'The request body is not valid JSON' } } })
   }
+  assertShallow(body)
   const result = schema.safeParse(body ?? {})
   if (!result.success) invalid(result.error, 'body')
   return result.data
+}
+
+/** No request body nests deeper than this (a routine's steps need well under half of it). */
+export const MAX_BODY_DEPTH = 32
+
+/**
+ * Refuses a body nested deeper than `MAX_BODY_DEPTH` before any schema walks it: recursive zod
+ * schemas would otherwise overflow the stack on a few thousand levels. Walks without recursion.
+ */
+export function assertShallow(body: unknown) {
+  const stack: [unknown, number][] = [[body, 1]]
+  while (stack.length) {
+    const [value, depth] = stack.pop()!
+    if (value === null || typeof value !== 'object') continue
+    if (depth > MAX_BODY_DEPTH) {
+      const message = `The request body is nested deeper than ${MAX_BODY_DEPTH} levels`
+      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message, data: { fields: { _: message } } })
+    }
+    for (const child of Object.values(value)) {
+      if (child !== null && typeof child === 'object') stack.push([child, depth + 1])
+    }
+  }
 }
 
 export function queryWith<S extends z.ZodType>(event: H3Event, schema: S): z.output<S> {
@@ -41,4 +64,13 @@ export function paramsWith<S extends z.ZodType>(event: H3Event, schema: S): z.ou
 
 export function notFound(what = 'Not found'): never {
   throw createError({ statusCode: 404, statusMessage: 'Not found', message: what })
+}
+
+/** Whether a database error is a unique-index violation (a race lost to a simultaneous request). */
+export function isUniqueViolation(error: unknown): boolean {
+  for (let current = error; current; current = (current as { cause?: unknown }).cause) {
+    if (/UNIQUE constraint failed|SQLITE_CONSTRAINT_UNIQUE|SQLITE_CONSTRAINT_PRIMARYKEY/i.test(String((current as Error).message ?? current)) || (current as { code?: string }).code === 'SQLITE_CONSTRAINT_UNIQUE') return true
+    if (current === (current as { cause?: unknown }).cause) break
+  }
+  return false
 }

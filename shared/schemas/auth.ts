@@ -36,7 +36,19 @@ export const squadSchema = z.object({
 })
 
 export const squadMembersSchema = z.object({
-  athleteIds: z.array(z.number().int().positive()).max(500),
+  athleteIds: z.array(z.number().int().positive()).max(500)
+    .refine(ids => new Set(ids).size === ids.length, 'Each athlete can be listed only once'),
 })
 
+/** A squad change: only the fields sent are changed (no default fills in a missing description). */
+export const squadPatchSchema = z.object({
+  name: squadSchema.shape.name.optional(),
+  description: z.string().trim().max(500, 'Description is at most 500 characters').optional(),
+}).refine(value => value.name !== undefined || value.description !== undefined, 'Send a name or a description')
+
 export const tokenParamsSchema = z.object({ token: z.string().min(20, 'Link is not valid').max(200, 'Link is not valid') })
+
+export const changePasswordSchema = z.object({
+  currentPassword: z.string({ error: 'Current password is required' }).min(1, 'Current password is required').max(200, 'Password is too long'),
+  newPassword: passwordSchema,
+})

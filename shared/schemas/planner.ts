@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { idParam, isoDateSchema } from './common'
+import { idParam, isoDateSchema, planDateSchema } from './common'
 import { daysBetween, isCalendarDay, MAX_PLAN_WEEKS } from '../utils/dates'
 
 export const MAX_BATCH_ATHLETES = 200
@@ -10,7 +10,7 @@ const id = z.number({ error: 'Pick one' }).int().positive('Pick one')
 const note = z.string().trim().max(MAX_NOTE, `Notes are at most ${MAX_NOTE} characters`)
 
 export const seriesSchema = z.object({
-  startDate: isoDateSchema,
+  startDate: planDateSchema,
   weeks: z.number({ error: 'Give a number of weeks' }).int('Weeks must be a whole number').min(1, 'At least 1 week').max(MAX_PLAN_WEEKS, `A block is at most ${MAX_PLAN_WEEKS} weeks`),
   weekdays: z.array(z.number().int().min(1, 'Weekdays run 1 (Monday) to 7 (Sunday)').max(7, 'Weekdays run 1 (Monday) to 7 (Sunday)'))
     .min(1, 'Choose at least one weekday')
@@ -22,7 +22,7 @@ export const assignSchema = z.object({
   routineId: id,
   athleteIds: z.array(id).max(MAX_BATCH_ATHLETES, `At most ${MAX_BATCH_ATHLETES} athletes at once`).optional(),
   squadId: id.optional(),
-  dates: z.array(isoDateSchema).min(1, 'Add at least one date').max(MAX_BATCH_DATES, `At most ${MAX_BATCH_DATES} dates at once`).optional(),
+  dates: z.array(planDateSchema).min(1, 'Add at least one date').max(MAX_BATCH_DATES, `At most ${MAX_BATCH_DATES} dates at once`).optional(),
   series: seriesSchema.optional(),
   note: note.default(''),
   /** A line for one athlete, added under the shared note. Keys are athlete ids. */
@@ -75,7 +75,7 @@ export const myAssignmentRangeSchema = z.object({
 })
 
 export const assignmentPatchSchema = z.object({
-  date: isoDateSchema.optional(),
+  date: planDateSchema.optional(),
   note: note.optional(),
   /** Hands the session to another athlete of the team (the planner grid's drag between rows). */
   athleteId: id.optional(),

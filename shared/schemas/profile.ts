@@ -24,12 +24,13 @@ export const injuryNoteSchema = z.object({
   status: z.enum(injuryStatuses).default('active'),
 })
 
-export const injuryNotePatchSchema = z.object({
+export const injuryNotePatchSchema = z.strictObject({
   bodyArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }).optional(),
   note: z.string().trim().max(500, 'Notes are at most 500 characters').optional(),
   since: isoDateSchema.nullable().optional(),
   status: z.enum(injuryStatuses, { error: 'Status is active or resolved' }).optional(),
-})
+}, { error: issue => issue.code === 'unrecognized_keys' ? `Unknown field: ${issue.keys.join(', ')}` : undefined })
+  .refine(value => Object.values(value).some(field => field !== undefined), 'Send at least one of bodyArea, note, since or status')
 
 export type ProfilePatch = z.infer<typeof profilePatchSchema>
 

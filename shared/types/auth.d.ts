@@ -8,6 +8,10 @@ declare module '#auth-utils' {
     teamId: number
     role: 'head_coach' | 'coach' | 'athlete'
   }
+  interface SecureSessionData {
+    /** The random id of this sign-in; its hash is a row in `auth_sessions`. */
+    sid: string
+  }
 }
 
 export {}

@@ -230,3 +230,24 @@ function checkDistance(distanceM: number, name = 'Distance (m)'): void {
 function checkTime(timeS: number, name = 'Time (s)'): void {
   checkNumber(name, timeS, 0, MAX_DURATION_S, { exclusiveMin: true })
 }
+
+/**
+ * Why a benchmark race cannot give training paces (the same checks `trainingPaces` and the race table
+ * make), or null when it can. Used to refuse an implausible benchmark when it is saved.
+ */
+export function benchmarkProblem(benchmark: RaceResult): string | null {
+  try {
+    trainingPaces(benchmark)
+    raceTimeForVo2max(equivalentVo2max(benchmark.distanceM, benchmark.timeS), MILE_M)
+    return null
+  }
+  catch (error) {
+    if (error instanceof RangeError || error instanceof TypeError) return error.message
+    throw error
+  }
+}
+
+/** Training paces, or null for a stored benchmark the equations cannot use (rows saved before the check). */
+export function trainingPacesOrNull(benchmark: RaceResult): TrainingPaces | null {
+  return benchmarkProblem(benchmark) === null ? trainingPaces(benchmark) : null
+}

@@ -36,6 +36,18 @@ export class ApiClient {
     return { status: response.status, headers: response.headers, data: data as T, text }
   }
 
+  /** The Cookie header this client sends. */
+  cookieHeader() {
+    return [...this.cookies].map(([name, value]) => `${name}=${value}`).join('; ')
+  }
+
+  /** A second client carrying this one's cookies now: a copied cookie, as a thief or another tab would hold it. */
+  copy() {
+    const twin = new ApiClient(this.baseUrl, this.headers)
+    for (const [name, value] of this.cookies) twin.cookies.set(name, value)
+    return twin
+  }
+
   get<T = unknown>(path: string) { return this.request<T>('GET', path) }
   post<T = unknown>(path: string, body?: unknown) { return this.request<T>('POST', path, body ?? {}) }
   put<T = unknown>(path: string, body?: unknown) { return this.request<T>('PUT', path, body) }

@@ -30,6 +30,8 @@ export interface Stack {
   mail: MailCatcher
   s3: { endpoint: string, bucket: string, stop: () => Promise<unknown>, start: () => Promise<void> }
   env: Record<string, string>
+  /** What the app server has printed since it (re)started. */
+  log: () => string
   /** Stops and starts the app server again on the same port and database. */
   restartApp: () => Promise<void>
   stop: () => Promise<void>
@@ -161,6 +163,7 @@ export async function startStack(extraEnv: Record<string, string> = {}, options:
     mail,
     s3,
     env,
+    log: () => app?.output() ?? '',
     restartApp: async () => {
       await stopApp()
       await startApp()

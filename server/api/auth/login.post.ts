@@ -10,7 +10,8 @@ export default defineEventHandler(async (event) => {
   await assertLoginAllowed(input.email, ip)
   const db = await useDb()
   const [user] = await db.select().from(users).where(eq(users.email, input.email)).limit(1)
-  if (!user || !(await verifyPassword(user.passwordHash, input.password))) {
+  const valid = user ? await verifyPassword(user.passwordHash, input.password) : await verifyAgainstDummy(input.password)
+  if (!user || !valid) {
     await recordLoginFailure(input.email, ip)
     throw wrong()
   }
@@ -18,7 +19,7 @@ export default defineEventHandler(async (event) => {
     .from(memberships).innerJoin(teams, eq(teams.id, memberships.teamId))
     .where(eq(memberships.userId, user.id)).orderBy(desc(memberships.createdAt)).limit(1)
   if (!membership) throw wrong()
-  await clearLoginFailures(input.email)
+  await clearLoginFailures(input.email, ip)
   await signIn(event, user, membership.teamId, membership.role)
   return { user: { id: user.id, name: user.name, email: user.email }, team: { id: membership.teamId, name: membership.teamName }, role: membership.role }
 })

@@ -6,15 +6,18 @@ export default defineEventHandler(async (event) => {
   const input = await readBodyWith(event, registerSchema)
   const db = await useDb()
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).limit(1)
-  if (existing) {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'An account with this e-mail already exists', data: { fields: { email: 'An account with this e-mail already exists; sign in instead' } } })
-  }
+  const taken = () => createError({ statusCode: 409, statusMessage: 'Conflict', message: 'An account with this e-mail already exists', data: { fields: { email: 'An account with this e-mail already exists; sign in instead' } } })
+  if (existing) throw taken()
   const passwordHash = await hashPassword(input.password)
+  // Two registrations at the same moment both pass the check above; the unique index decides.
   const { user, team } = await db.transaction(async (tx) => {
     const [team] = await tx.insert(teams).values({ name: input.teamName }).returning()
     const [user] = await tx.insert(users).values({ name: input.name, email: input.email, passwordHash }).returning()
     await tx.insert(memberships).values({ teamId: team!.id, userId: user!.id, role: 'head_coach' })
     return { user: user!, team: team! }
+  }).catch((error: unknown) => {
+    if (isUniqueViolation(error)) throw taken()
+    throw error
   })
   await signIn(event, user, team.id, 'head_coach')
   const starterSet = input.starterSet ? await addStarterSet(db, team.id, user.id) : null

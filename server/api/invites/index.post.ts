@@ -17,6 +17,7 @@ export default defineEventHandler(async (event) => {
   if (member) {
     throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This person is already in your team', data: { fields: { email: 'This person is already in your team' } } })
   }
+  await takeAllowance(mailRules(input.email, clientAddress(event), caller.teamId))
   const invite = await db.transaction(async (tx) => {
     const [invite] = await tx.insert(invites).values({
       teamId: caller.teamId,

@@ -1,12 +1,14 @@
-import { and, asc, eq, gte, isNull } from 'drizzle-orm'
+import { and, asc, eq, gte, isNull, lte } from 'drizzle-orm'
 import ical, { ICalCalendarMethod } from 'ical-generator'
 import { assignments, calendarFeeds, memberships, teams, users } from '../../db/schema'
 import { shownStatus } from '../../../shared/utils/assignment-status'
 import { routineCategoryLabel, statusLabels } from '../../../shared/utils/vocabulary'
-import { addDays, dayToUtcDate, todayIn } from '../../../shared/utils/dates'
+import { addDays, dayToUtcDate, isCalendarDay, todayIn } from '../../../shared/utils/dates'
 import { blockWeekLine } from '../../../shared/utils/block-week'
 
 const FEED_PAST_DAYS = 60
+// Plan dates are kept within five years (shared/schemas/common.ts); older rows beyond it are left out.
+const FEED_FUTURE_DAYS = 5 * 366
 
 /** One athlete's plan as an iCalendar (RFC 5545) feed of all-day events; the token is the only key. */
 export default defineEventHandler(async (event) => {
@@ -27,15 +29,25 @@ export default defineEventHandler(async (event) => {
   const today = todayIn(feed.timezone)
   const rows = await db.select({ id: assignments.id, date: assignments.date, snapshot: assignments.snapshot, note: assignments.note, status: assignments.status, updatedAt: assignments.updatedAt })
     .from(assignments)
-    .where(and(eq(assignments.teamId, feed.teamId), eq(assignments.athleteId, feed.userId), gte(assignments.date, addDays(today, -FEED_PAST_DAYS))))
+    .where(and(eq(assignments.teamId, feed.teamId), eq(assignments.athleteId, feed.userId), gte(assignments.date, addDays(today, -FEED_PAST_DAYS)), lte(assignments.date, addDays(today, FEED_FUTURE_DAYS))))
     .orderBy(asc(assignments.date), asc(assignments.id))
 
   const { appUrl } = useServerConfig()
   const host = new URL(appUrl).host
   const calendar = ical({ name: `Switchback · ${feed.teamName}`, prodId: { company: 'Switchback', product: 'planner', language: 'EN' }, method: ICalCalendarMethod.PUBLISH, ttl: 60 * 60 })
   for (const row of rows) {
+    // One unreadable row (a malformed date or snapshot from older data) is skipped, not the whole feed.
+    try {
+      addToCalendar(row)
+    }
+    catch (error) {
+      console.warn(`Calendar feed skipped assignment ${row.id}:`, (error as Error).message)
+    }
+  }
+  function addToCalendar(row: typeof rows[number]) {
     const status = statusLabels[shownStatus(row.status, row.date, today)]
     const url = `${appUrl}/session/${row.id}`
+    if (!isCalendarDay(row.date)) throw new Error(`not a calendar day: ${row.date}`)
     calendar.createEvent({
       id: `assignment-${row.id}@${host}`,
       allDay: true,

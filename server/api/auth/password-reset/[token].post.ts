@@ -16,8 +16,13 @@ export default defineEventHandler(async (event) => {
     const used = await tx.update(passwordResets).set({ usedAt: new Date() })
       .where(and(eq(passwordResets.id, reset.id), isNull(passwordResets.usedAt))).returning({ id: passwordResets.id })
     if (used.length === 0) throw createError({ statusCode: 410, statusMessage: 'Gone', message: 'This reset link was already used' })
+    // Using one link spends every other outstanding link of this person.
+    await tx.update(passwordResets).set({ usedAt: new Date() })
+      .where(and(eq(passwordResets.userId, reset.userId), isNull(passwordResets.usedAt)))
     await tx.update(users).set({ passwordHash }).where(eq(users.id, reset.userId))
   })
+  // A new password ends every session, wherever it was opened.
+  await endAllSignIns(reset.userId)
   await clearLoginFailures((await db.select({ email: users.email }).from(users).where(eq(users.id, reset.userId)))[0]?.email ?? '')
   return { ok: true }
 })

@@ -24,6 +24,10 @@ export default defineEventHandler(async (event) => {
       if (invite.squadId) await tx.insert(squadMembers).values({ squadId: invite.squadId, userId: user.id }).onConflictDoNothing()
     }
     return user
+  }).catch((error: unknown) => {
+    // An account for this e-mail was registered at the same moment.
+    if (isUniqueViolation(error)) throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'An account with this e-mail was just created; accept the invitation again with its password', data: { fields: { password: 'Enter the password of your existing account' } } })
+    throw error
   })
   await signIn(event, user, invite.teamId, invite.role)
   setResponseStatus(event, 201)

@@ -3,7 +3,11 @@ import { idParamsSchema } from '../../../../shared/schemas/common'
 import { entrySchema } from '../../../../shared/schemas/session'
 import { assignments, entryLogs, exercises } from '../../../db/schema'
 
-/** Logs one set or interval. A repeated idempotency key answers 200 with the first result, unchanged. */
+/**
+ * Logs one set or interval. A repeated idempotency key answers 200 with the first result, unchanged.
+ * A finished session still takes entries within the edit window (late offline sends), and its
+ * assignment's status is worked out again; after the window, 409.
+ */
 export default defineEventHandler(async (event) => {
   const caller = await requireTeamRole(event, 'athlete')
   const { id } = paramsWith(event, idParamsSchema)
@@ -48,6 +52,7 @@ export default defineEventHandler(async (event) => {
     rpe: body.rpe ?? null,
   }).onConflictDoNothing().returning()
   if (inserted[0]) {
+    await refreshFinishedStatus(db, caller.teamId, session)
     setResponseStatus(event, 201)
     return entryView(inserted[0])
   }
