@@ -1,12 +1,15 @@
 import { randomBytes } from 'node:crypto'
 import { HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
 import { and, eq, sql } from 'drizzle-orm'
-import { exercises, mediaObjects } from '../server/db/schema'
+import { clipCues, exercises, mediaObjects } from '../server/db/schema'
+import { CLIP_CUE_LIMITS } from '../shared/schemas/clip-cue'
 import type { ExerciseInput } from '../shared/schemas/exercise'
-import { makeDemoClip, type ClipOptions } from './clip'
 import type { SeedStep } from './context'
+import { figureStyles } from './figure'
+import { renderFigureClip } from './figure-clip'
+import { exerciseMovements } from './movements'
 
-type StarterExercise = ExerciseInput & { clip?: ClipOptions }
+type StarterExercise = ExerciseInput
 
 // The starter library, written for Switchback. Cues are in the order a coach would say them.
 export const starterExercises: StarterExercise[] = [
@@ -18,7 +21,6 @@ export const starterExercises: StarterExercise[] = [
     cues: ['Stand on one foot with the heel hanging off the step', 'Rise as high as you can in one second', 'Pause at the top', 'Lower for three seconds until the heel sits below the step'],
     equipment: ['Step', 'Dumbbell'],
     cautions: [{ text: 'With a sore Achilles, keep the heel level with the step instead of dropping below it.', bodyAreas: ['achilles', 'calf'] }],
-    clip: { motion: 'bounce', background: '#224668', marker: '#ec9f70' },
   },
   {
     name: 'Bent-knee calf raise',
@@ -81,7 +83,6 @@ export const starterExercises: StarterExercise[] = [
     cues: ['Heels close to the hips', 'Press the lower back gently into the floor', 'Lift the hips by squeezing the glutes', 'Hold one second, lower slowly'],
     equipment: ['Mat'],
     cautions: [{ text: 'If the hamstrings cramp, bring the heels closer; if the back arches, lift less high.', bodyAreas: ['hamstring', 'lower_back'] }],
-    clip: { motion: 'bounce', background: '#3f3d38', marker: '#84bf9e' },
   },
   {
     name: 'Single-leg glute bridge',
@@ -121,7 +122,6 @@ export const starterExercises: StarterExercise[] = [
       { text: 'Keep the efforts short: the aim is power, not fatigue.', bodyAreas: ['calf', 'achilles'] },
       { text: 'Walk down; running the descent loads the knees and shins.', bodyAreas: ['knee', 'shin'] },
     ],
-    clip: { motion: 'climb', background: '#1f4d3a', marker: '#e37842' },
   },
   {
     name: 'Long hill repeats',
@@ -165,7 +165,6 @@ export const starterExercises: StarterExercise[] = [
     cues: ['Tall posture, hips high', 'Lift the knee to hip height', 'Strike the ball of the foot down under the hip', 'Opposite arm swings with the knee'],
     equipment: [],
     cautions: [{ text: 'Keep contacts light; stop if the shins ache.', bodyAreas: ['shin', 'calf'] }],
-    clip: { motion: 'run', background: '#4f4c45', marker: '#f4c5a6' },
   },
   {
     name: 'B-skips',
@@ -215,7 +214,6 @@ export const starterExercises: StarterExercise[] = [
     cues: ['Build smoothly for the first third', 'Run fast and relaxed in the middle', 'Ease down over the last third', 'Walk or jog back fully recovered'],
     equipment: [],
     cautions: [{ text: 'Run strides on a flat, even surface after an easy run, not cold.', bodyAreas: ['hamstring', 'calf'] }],
-    clip: { motion: 'run', background: '#24527d', marker: '#d8ecdf' },
   },
   {
     name: 'Barefoot grass strides',
@@ -282,7 +280,6 @@ export const starterExercises: StarterExercise[] = [
     cues: ['Stay on the balls of the feet', 'Knees nearly straight', 'Bounce off the ground as if it were hot', 'Small and fast, not high'],
     equipment: [],
     cautions: [{ text: 'Start with a few sets of ten; skip these with Achilles or shin pain.', bodyAreas: ['achilles', 'shin', 'calf'] }],
-    clip: { motion: 'bounce', background: '#163628', marker: '#bcd8ec' },
   },
   {
     name: 'Hill bounding',
@@ -342,7 +339,7 @@ function seedStorage() {
 export const seedExercises: SeedStep = async ({ db, teamId, users, log }) => {
   let created = 0
   const ids = new Map<string, number>()
-  for (const { clip: _clip, ...exercise } of starterExercises) {
+  for (const exercise of starterExercises) {
     const [existing] = await db.select({ id: exercises.id }).from(exercises)
       .where(and(eq(exercises.teamId, teamId), sql`lower(${exercises.name}) = lower(${exercise.name})`)).limit(1)
     if (existing) {
@@ -355,7 +352,6 @@ export const seedExercises: SeedStep = async ({ db, teamId, users, log }) => {
   }
   log(`exercises: ${starterExercises.length} in the starter library (${created} new)`)
 
-  const withClips = starterExercises.filter(exercise => exercise.clip)
   const { client, bucket } = seedStorage()
   try {
     await client.send(new HeadBucketCommand({ Bucket: bucket }))
@@ -365,20 +361,52 @@ export const seedExercises: SeedStep = async ({ db, teamId, users, log }) => {
     client.destroy()
     return
   }
+  const started = performance.now()
   let uploaded = 0
-  for (const exercise of withClips) {
+  let drawn = 0
+  for (const exercise of starterExercises) {
     const id = ids.get(exercise.name)!
-    const [current] = await db.select({ clipId: exercises.clipId }).from(exercises).where(eq(exercises.id, id)).limit(1)
-    if (current?.clipId) continue
-    const body = await makeDemoClip({ seconds: 3, ...exercise.clip })
-    const key = `teams/${teamId}/exercises/${id}/${randomBytes(12).toString('hex')}.webm`
-    await client.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: 'video/webm', ContentLength: body.byteLength }))
+    const motion = exerciseMovements[exercise.name]
+    if (!motion) continue
+    const [current] = await db.select({ clipId: exercises.clipId, durationSeconds: mediaObjects.durationSeconds, contentType: mediaObjects.contentType, createdById: mediaObjects.createdById })
+      .from(exercises).leftJoin(mediaObjects, eq(mediaObjects.id, exercises.clipId)).where(eq(exercises.id, id)).limit(1)
+    // A coach's own clip is kept; only a missing clip or the earlier demo placeholder (no length read) is drawn.
+    const placeholder = current?.clipId && current.durationSeconds === null && current.contentType === 'video/webm' && current.createdById === users.headCoach
+    if (current?.clipId && !placeholder) continue
+
+    const clip = await renderFigureClip(motion.movement, figureStyles[exercise.category]!)
+    if (!clip.fromCache) drawn += 1
+    const prefix = `teams/${teamId}/exercises/${id}/${randomBytes(12).toString('hex')}`
+    await client.send(new PutObjectCommand({ Bucket: bucket, Key: `${prefix}.webm`, Body: clip.webm, ContentType: 'video/webm', ContentLength: clip.webm.byteLength }))
+    await client.send(new PutObjectCommand({ Bucket: bucket, Key: `${prefix}.jpg`, Body: clip.poster, ContentType: 'image/jpeg', ContentLength: clip.poster.byteLength }))
     await db.transaction(async (tx) => {
-      const [media] = await tx.insert(mediaObjects).values({ teamId, exerciseId: id, key, purpose: 'clip', contentType: 'video/webm', size: body.byteLength, status: 'ready', createdById: users.headCoach }).returning({ id: mediaObjects.id })
-      await tx.update(exercises).set({ clipId: media!.id }).where(eq(exercises.id, id))
+      const [media] = await tx.insert(mediaObjects).values({ teamId, exerciseId: id, key: `${prefix}.webm`, purpose: 'clip', contentType: 'video/webm', size: clip.webm.byteLength, durationSeconds: clip.durationSeconds, width: clip.width, height: clip.height, status: 'ready', createdById: users.headCoach }).returning({ id: mediaObjects.id })
+      const [poster] = await tx.insert(mediaObjects).values({ teamId, exerciseId: id, key: `${prefix}.jpg`, purpose: 'poster', contentType: 'image/jpeg', size: clip.poster.byteLength, status: 'ready', createdById: users.headCoach }).returning({ id: mediaObjects.id })
+      await tx.update(exercises).set({ clipId: media!.id, posterId: poster!.id }).where(eq(exercises.id, id))
+      if (placeholder) await tx.update(mediaObjects).set({ status: 'deleted' }).where(eq(mediaObjects.id, current.clipId!))
+      const [existingCue] = await tx.select({ id: clipCues.id }).from(clipCues).where(eq(clipCues.exerciseId, id)).limit(1)
+      if (!existingCue) {
+        const cues = demoCues(exercise.cues, clip.durationSeconds, motion.cueAt)
+        if (cues.length) await tx.insert(clipCues).values(cues.map(cue => ({ ...cue, teamId, exerciseId: id, createdById: users.headCoach })))
+      }
     })
     uploaded += 1
   }
   client.destroy()
-  log(`exercise clips: ${withClips.length} demo clips (${uploaded} new)`)
+  log(`exercise clips: ${uploaded} demo figure clips uploaded (${drawn} drawn, the rest from .data/clip-cache) in ${((performance.now() - started) / 1000).toFixed(1)} s`)
+}
+
+/** The exercise's cues at their moments in the clip: given times, or spread evenly, each up until the next. */
+export function demoCues(cues: string[], durationSeconds: number, cueAt?: number[]) {
+  const list = cues.slice(0, CLIP_CUE_LIMITS.perClip)
+  const starts = list.map((_, index) => cueAt?.[index] ?? Math.round((index * durationSeconds / Math.max(1, list.length)) * 10) / 10 + 0.1)
+  return list.map((text, index) => {
+    const next = starts[index + 1] ?? durationSeconds
+    const end = Math.min(durationSeconds, Math.max(starts[index]! + 0.5, next - 0.05))
+    return {
+      startSeconds: Math.min(starts[index]!, durationSeconds - 0.2),
+      endSeconds: Math.round(end * 1000) / 1000,
+      text: text.length > CLIP_CUE_LIMITS.text ? `${text.slice(0, CLIP_CUE_LIMITS.text - 1)}…` : text,
+    }
+  })
 }

@@ -156,6 +156,10 @@ export const mediaObjects = sqliteTable('media_objects', {
   contentType: text('content_type').notNull(),
   size: integer('size').notNull(),
   status: text('status', { enum: ['pending', 'ready', 'deleted'] }).notNull().default('pending'),
+  // Read from the container at confirm (clips only); null for posters and clips stored before.
+  durationSeconds: real('duration_seconds'),
+  width: integer('width'),
+  height: integer('height'),
   createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
   ...timestamps,
 }, t => [
@@ -186,6 +190,23 @@ export const exercises = sqliteTable('exercises', {
   index('exercises_poster_idx').on(t.posterId),
   index('exercises_created_by_idx').on(t.createdById),
   index('exercises_archived_idx').on(t.teamId, t.archivedAt),
+])
+
+// Form cues pinned to moments of an exercise's clip. They belong to the exercise, not to one file,
+// so replacing the clip keeps them.
+export const clipCues = sqliteTable('clip_cues', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  exerciseId: integer('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  startSeconds: real('start_seconds').notNull(),
+  endSeconds: real('end_seconds'),
+  text: text('text').notNull(),
+  createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  index('clip_cues_exercise_idx').on(t.exerciseId, t.startSeconds),
+  index('clip_cues_team_idx').on(t.teamId),
+  index('clip_cues_created_by_idx').on(t.createdById),
 ])
 
 export const routines = sqliteTable('routines', {

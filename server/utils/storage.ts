@@ -182,3 +182,11 @@ export function looksLike(contentType: string, start: Uint8Array): boolean {
       return false
   }
 }
+
+/** Bytes `start` to `end - 1` of an object (a ranged GET), for reading a container's metadata in place. */
+export async function readObjectRange(key: string, start: number, end: number): Promise<Uint8Array> {
+  const { server, bucket } = useObjectStore()
+  if (end <= start) return new Uint8Array()
+  const object = await guarded(() => server.send(new GetObjectCommand({ Bucket: bucket, Key: key, Range: `bytes=${start}-${end - 1}` })))
+  return object.Body ? await object.Body.transformToByteArray() : new Uint8Array()
+}

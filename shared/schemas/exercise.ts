@@ -131,7 +131,8 @@ export interface ExerciseView {
   equipment: string[]
   cautions: { text: string, bodyAreas: (typeof bodyAreas)[number][] }[]
   hasClip: boolean
-  clip: { contentType: string, size: number } | null
+  /** Duration and picture size are read from the container at confirm; null when it did not say. */
+  clip: { contentType: string, size: number, durationSeconds: number | null, width: number | null, height: number | null } | null
   hasPoster: boolean
   archivedAt: string | null
   createdAt: string

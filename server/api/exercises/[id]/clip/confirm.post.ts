@@ -40,9 +40,14 @@ export default defineEventHandler(async (event) => {
     rejectKey(`${problem}; it was discarded`)
   }
 
+  // A clip's length and picture size come from its container, read in place with ranged GETs.
+  const metadata = pending.purpose === 'clip' ? await readClipMetadata(key, stored.size) : null
   const replacedId = pending.purpose === 'clip' ? exercise.clipId : exercise.posterId
   const replaced = await db.transaction(async (tx) => {
-    await tx.update(mediaObjects).set({ status: 'ready' }).where(eq(mediaObjects.id, pending.id))
+    await tx.update(mediaObjects).set({
+      status: 'ready',
+      ...(metadata ? { durationSeconds: metadata.durationSeconds, width: metadata.width, height: metadata.height } : {}),
+    }).where(eq(mediaObjects.id, pending.id))
     await tx.update(exercises)
       .set(pending.purpose === 'clip' ? { clipId: pending.id } : { posterId: pending.id })
       .where(and(eq(exercises.id, id), eq(exercises.teamId, caller.teamId)))
