@@ -144,3 +144,16 @@ export function formatBytes(bytes: number) {
   if (bytes < 1024 * 1024) return `${(bytes / 1024).toFixed(0)} KB`
   return `${(bytes / 1024 / 1024).toFixed(1)} MB`
 }
+
+/** What a coach reads under the clip: type, size, length and picture size, e.g. "WEBM · 120 KB · 4.5 s · 320×240". */
+export function clipDetails(exercise: Pick<ExerciseView, 'clip' | 'hasPoster'>) {
+  const clip = exercise.clip
+  if (!clip) return ''
+  return [
+    clip.contentType.replace('video/', '').replace('quicktime', 'mov').toUpperCase(),
+    formatBytes(clip.size),
+    clip.durationSeconds !== null ? `${clip.durationSeconds.toFixed(1)} s` : null,
+    clip.width && clip.height ? `${clip.width}×${clip.height}` : null,
+    exercise.hasPoster ? 'with poster image' : null,
+  ].filter(Boolean).join(' · ')
+}
