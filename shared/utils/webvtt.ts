@@ -6,8 +6,10 @@ export interface TimedText {
   text: string
 }
 
-/** How long a cue without an end stays up: until the next cue, at most this long, and never past the clip. */
+/** How long a cue without an end stays up: until just before the next cue, at most this long, and never past the clip. */
 export const DEFAULT_CUE_SECONDS = 2.5
+/** The gap left before the next cue, so two captions never show at once on the boundary. */
+const GAP_SECONDS = 0.05
 
 /** `hh:mm:ss.ttt`, the timestamp form WebVTT always accepts. */
 export function vttTimestamp(seconds: number) {
@@ -38,7 +40,7 @@ export function cueEnds<T extends TimedText>(cues: T[], durationSeconds: number 
   const sorted = [...cues].sort((a, b) => a.startSeconds - b.startSeconds)
   return sorted.map((cue, index) => {
     const next = sorted.slice(index + 1).find(other => other.startSeconds > cue.startSeconds)
-    let end = cue.endSeconds ?? Math.min(cue.startSeconds + DEFAULT_CUE_SECONDS, next?.startSeconds ?? Number.POSITIVE_INFINITY)
+    let end = cue.endSeconds ?? Math.min(cue.startSeconds + DEFAULT_CUE_SECONDS, next ? next.startSeconds - GAP_SECONDS : Number.POSITIVE_INFINITY)
     if (durationSeconds !== null && cue.endSeconds === null) end = Math.min(end, Math.max(durationSeconds, cue.startSeconds + 0.1))
     if (end <= cue.startSeconds) end = cue.startSeconds + 0.1
     return { ...cue, shownEnd: end }

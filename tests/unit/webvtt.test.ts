@@ -42,12 +42,12 @@ describe('WebVTT for clip cues', () => {
     ])
   })
 
-  it('ends an open cue at the next cue, and never past the clip', () => {
+  it('ends an open cue just before the next cue, and never past the clip', () => {
     const [first, second] = parseWebVtt(buildWebVtt([
       { startSeconds: 1, endSeconds: null, text: 'a' },
       { startSeconds: 1.8, endSeconds: null, text: 'b' },
     ], 3))
-    expect(first!.end).toBe(1.8)
+    expect(first!.end).toBe(1.75)
     expect(second!.end).toBe(3)
   })
 
