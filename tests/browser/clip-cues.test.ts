@@ -145,11 +145,11 @@ describe('cues pinned to moments of a clip', () => {
       element.currentTime = 0.8
       return element.play()
     })
-    await expect.poll(async () => (await activeCues())?.active, { timeout: 10_000, intervals: [50] }).toEqual(['Knee drives up here'])
+    await expect.poll(async () => (await activeCues())?.active, { timeout: 10_000, interval: 50 }).toEqual(['Knee drives up here'])
     const whenFirst = await activeCues()
     expect(whenFirst!.time).toBeGreaterThanOrEqual(1.1)
     expect(whenFirst!.time).toBeLessThan(2.5)
-    await expect.poll(async () => (await activeCues())?.active, { timeout: 10_000, intervals: [50] }).toEqual(['Heel stays down now'])
+    await expect.poll(async () => (await activeCues())?.active, { timeout: 10_000, interval: 50 }).toEqual(['Heel stays down now'])
     const whenSecond = await activeCues()
     expect(whenSecond!.time).toBeGreaterThanOrEqual(2.5)
     expect(whenSecond!.time).toBeLessThan(3.5)

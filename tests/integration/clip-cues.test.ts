@@ -52,7 +52,7 @@ async function exerciseWithClip(client: ApiClient, body: Uint8Array, contentType
 async function uploadClip(client: ApiClient, exerciseId: number, body: Uint8Array, contentType: string) {
   const signed = await client.post<UploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
   expect(signed.status, signed.text).toBe(200)
-  const put = await fetch(signed.data.url, { method: 'PUT', body, headers: { 'content-type': contentType } })
+  const put = await fetch(signed.data.url, { method: 'PUT', body: Buffer.from(body), headers: { 'content-type': contentType } })
   expect(put.status).toBe(200)
   const confirmed = await client.post<Exercise>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
   expect(confirmed.status, confirmed.text).toBe(200)
