@@ -112,6 +112,15 @@ describe('cues at moments', () => {
     expect(track.headers.get('content-type')).toMatch(/^text\/vtt/)
     expect(track.text).toBe('WEBVTT\n\n1\n00:00:00.600 --> 00:00:01.600\nKnee up, toes up\n\n2\n00:00:02.500 --> 00:00:04.000\nHeel stays down &lt;now&gt; &amp; then --&gt; go\n')
 
+    // The print card reads each exercise's pinned cues, in time order, with the routine.
+    const steps = JSON.stringify([{ id: 's1', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 }, exerciseId: exercise.id }])
+    const [routine] = await sql(`insert into routines (team_id, title, category, steps) values (?, 'Drill card', 'drills', ?) returning id`, [teamId, steps])
+    const card = await coach.get<{ exercises: { id: number, clipCues: { startSeconds: number, text: string }[] }[] }>(`/api/routines/${Number(routine!.id)}`)
+    expect(card.data.exercises[0]!.clipCues).toEqual([
+      { startSeconds: 0.6, text: 'Knee up, toes up' },
+      { startSeconds: 2.5, text: 'Heel stays down <now> & then --> go' },
+    ])
+
     const removed = await coach.delete(`${base}/${early.data.id}`)
     expect(removed.status).toBe(204)
     expect((await coach.get<Cue[]>(base)).data).toHaveLength(1)
