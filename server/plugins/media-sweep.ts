@@ -2,7 +2,9 @@
 export default defineNitroPlugin((nitro) => {
   const interval = Number(process.env.MEDIA_SWEEP_INTERVAL_MS) || 10 * 60_000
   const timer = setInterval(() => {
-    sweepAbandonedUploads().catch(error => console.error('Media sweep failed:', error))
+    sweepAbandonedUploads()
+      .then(() => sweepExpiredReviews())
+      .catch(error => console.error('Media sweep failed:', error))
   }, interval)
   timer.unref()
   nitro.hooks.hook('close', () => clearInterval(timer))

@@ -159,6 +159,14 @@ export async function putObject(key: string, body: Uint8Array, contentType: stri
   await guarded(() => server.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength })))
 }
 
+/** Why a stored upload is not what was announced (type, size, container signature), or '' when it is. */
+export async function uploadProblem(key: string, stored: { contentType: string, size: number }, announced: { contentType: string, size: number }) {
+  if (stored.contentType !== announced.contentType) return `The stored file is ${stored.contentType || 'of no stated type'}, not ${announced.contentType}`
+  if (stored.size !== announced.size) return `The stored file is ${stored.size} bytes, not the announced ${announced.size}`
+  if (!looksLike(announced.contentType, await readObjectStart(key))) return `The stored file is not a real ${announced.contentType} file`
+  return ''
+}
+
 function ascii(bytes: Uint8Array, start: number, end: number) {
   return String.fromCharCode(...bytes.subarray(start, end))
 }

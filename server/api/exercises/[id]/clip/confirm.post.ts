@@ -29,10 +29,7 @@ export default defineEventHandler(async (event) => {
   const stored = await headObject(key)
   if (!stored) rejectKey('Nothing has been uploaded with this key yet')
 
-  let problem = ''
-  if (stored.contentType !== pending.contentType) problem = `The stored file is ${stored.contentType || 'of no stated type'}, not ${pending.contentType}`
-  else if (stored.size !== pending.size) problem = `The stored file is ${stored.size} bytes, not the announced ${pending.size}`
-  else if (!looksLike(pending.contentType, await readObjectStart(key))) problem = `The stored file is not a real ${pending.contentType} file`
+  const problem = await uploadProblem(key, stored, pending)
   if (problem) {
     // Nothing half-written: the object goes, and the record says so, before answering.
     await deleteObject(key)
