@@ -10,7 +10,7 @@ function messageOf(error: unknown) {
 }
 
 /** PUT straight to the store with XMLHttpRequest, the one browser API that reports upload progress. */
-function putWithProgress(url: string, file: File, contentType: string, onProgress: (loaded: number, total: number) => void, signal: { abort?: () => void }) {
+export function putWithProgress(url: string, file: File, contentType: string, onProgress: (loaded: number, total: number) => void, signal: { abort?: () => void }) {
   return new Promise<void>((resolve, reject) => {
     const request = new XMLHttpRequest()
     signal.abort = () => request.abort()

@@ -16,6 +16,7 @@ export function useNav() {
         { to: '/routines', label: 'Routines' },
         { to: '/planner', label: 'Planner' },
         { to: '/insights', label: 'Insights' },
+        { to: '/reviews', label: 'Reviews' },
         { to: '/team', label: 'Team' },
       ]
     }
@@ -23,6 +24,7 @@ export function useNav() {
       { to: '/today', label: 'Today' },
       { to: '/logbook', label: 'Logbook' },
       { to: '/progress', label: 'Progress' },
+      { to: '/reviews', label: 'Reviews' },
       { to: '/profile', label: 'Profile' },
     ]
   })
