@@ -318,7 +318,7 @@ export const starterExercises: StarterExercise[] = [
   },
 ]
 
-function seedStorage() {
+export function seedStorage() {
   const endpoint = process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4569'
   return {
     bucket: process.env.S3_BUCKET ?? 'switchback-media',
