@@ -10,7 +10,7 @@ function messageOf(error: unknown) {
 }
 
 /** PUT straight to the store with XMLHttpRequest, the one browser API that reports upload progress. */
-function putWithProgress(url: string, file: File, contentType: string, onProgress: (loaded: number, total: number) => void, signal: { abort?: () => void }) {
+export function putWithProgress(url: string, file: File, contentType: string, onProgress: (loaded: number, total: number) => void, signal: { abort?: () => void }) {
   return new Promise<void>((resolve, reject) => {
     const request = new XMLHttpRequest()
     signal.abort = () => request.abort()
@@ -90,4 +90,50 @@ export function useClipUpload(exerciseId: MaybeRefOrGetter<number>) {
   const canRetry = computed(() => phase.value === 'failed' && failedUpload.value !== null)
 
   return { phase: readonly(phase), loaded: readonly(loaded), total: readonly(total), percent, busy, error: readonly(error), upload, cancel, retry, canRetry }
+}
+
+function once(target: EventTarget, name: string, timeoutMs: number) {
+  return new Promise<boolean>((resolve) => {
+    const timer = setTimeout(() => resolve(false), timeoutMs)
+    target.addEventListener(name, () => {
+      clearTimeout(timer)
+      resolve(true)
+    }, { once: true })
+  })
+}
+
+/**
+ * A JPEG of one frame of a video file, drawn on a canvas in the browser (a third of the way in, at most
+ * 1 s), at most 1280 px wide. Null when the browser cannot decode the file.
+ */
+export async function capturePosterFrame(file: File): Promise<File | null> {
+  const url = URL.createObjectURL(file)
+  const video = document.createElement('video')
+  video.muted = true
+  video.playsInline = true
+  video.preload = 'auto'
+  video.src = url
+  try {
+    if (!(await once(video, 'loadeddata', 8000))) return null
+    const at = Number.isFinite(video.duration) ? Math.min(1, video.duration / 3) : 0
+    if (at > 0) {
+      video.currentTime = at
+      await once(video, 'seeked', 5000)
+    }
+    const scale = Math.min(1, 1280 / (video.videoWidth || 1280))
+    const canvas = document.createElement('canvas')
+    canvas.width = Math.max(1, Math.round(video.videoWidth * scale))
+    canvas.height = Math.max(1, Math.round(video.videoHeight * scale))
+    canvas.getContext('2d')?.drawImage(video, 0, 0, canvas.width, canvas.height)
+    const blob = await new Promise<Blob | null>(resolve => canvas.toBlob(resolve, 'image/jpeg', 0.82))
+    return blob ? new File([blob], 'poster.jpg', { type: 'image/jpeg' }) : null
+  }
+  catch {
+    return null
+  }
+  finally {
+    URL.revokeObjectURL(url)
+    video.removeAttribute('src')
+    video.load()
+  }
 }

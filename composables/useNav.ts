@@ -1,6 +1,6 @@
 import { plural } from '#shared/utils/vocabulary'
 import type { Component } from 'vue'
-import { CalendarCheck, CalendarDays, CalendarRange, ChartLine, LayoutDashboard, Library, ListOrdered, NotebookPen, TrendingUp, UserRound, Users } from 'lucide-vue-next'
+import { CalendarCheck, CalendarDays, CalendarRange, ChartLine, Clapperboard, LayoutDashboard, Library, ListOrdered, NotebookPen, TrendingUp, UserRound, Users } from 'lucide-vue-next'
 
 export interface NavLink {
   to: string
@@ -26,6 +26,7 @@ export function useNav() {
         { to: '/planner', label: 'Planner', icon: CalendarDays },
         { to: '/blocks', label: 'Blocks', icon: CalendarRange },
         { to: '/insights', label: 'Insights', icon: ChartLine, badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
+        { to: '/reviews', label: 'Reviews', icon: Clapperboard },
         { to: '/team', label: 'Team', icon: Users },
       ]
     }
@@ -33,13 +34,14 @@ export function useNav() {
       { to: '/today', label: 'Today', icon: CalendarCheck },
       { to: '/logbook', label: 'Logbook', icon: NotebookPen },
       { to: '/progress', label: 'Progress', icon: TrendingUp },
+      { to: '/reviews', label: 'Reviews', icon: Clapperboard },
       { to: '/profile', label: 'Profile', icon: UserRound },
     ]
   })
   const isCurrent = (link: NavLink) => route.path === link.to || route.path.startsWith(`${link.to}/`)
   /**
-   * On phones athletes get a bar at the bottom (four destinations fit under the thumb) and coaches a
-   * menu (six do not). A running session keeps the whole bottom edge for its own controls.
+   * On phones athletes get a bar at the bottom (five destinations fit under the thumb) and coaches a
+   * menu (eight do not). A running session keeps the whole bottom edge for its own controls.
    */
   const phoneStyle = computed<'bar' | 'menu' | 'none'>(() => {
     if (!links.value.length) return 'none'

@@ -66,6 +66,13 @@ export function useSessionCues() {
     }
   }
 
+  /** Says a clip's form cue when its moment comes, if spoken cues are on. */
+  function speak(text: string) {
+    if (!settings.value.speech || !text || !('speechSynthesis' in window)) return
+    window.speechSynthesis.cancel()
+    window.speechSynthesis.speak(new SpeechSynthesisUtterance(text))
+  }
+
   async function keepAwake(on: boolean) {
     if (!on || !settings.value.keepAwake) {
       await wakeLock?.release().catch(() => undefined)
@@ -84,5 +91,5 @@ export function useSessionCues() {
     }
   }
 
-  return { settings, loadSettings, saveSettings, unlock, countdown, change, keepAwake }
+  return { settings, loadSettings, saveSettings, unlock, countdown, change, speak, keepAwake }
 }

@@ -67,22 +67,32 @@ export async function makeDemoClip(input: ClipOptions = {}): Promise<Buffer> {
     motion: 'run',
     ...input,
   }
-  const frames = Math.max(1, Math.round(options.seconds * options.framesPerSecond))
-  const frameDuration = 1 / options.framesPerSecond
+  const count = Math.max(1, Math.round(options.seconds * options.framesPerSecond))
+  const frames: Uint8Array[] = []
+  for (let index = 0; index < count; index++) frames.push(await svgToVp8(frameSvg(index / Math.max(1, count - 1), options)))
+  return vp8FramesToWebm(frames, options.framesPerSecond, options.width, options.height)
+}
 
+/** One SVG frame as a VP8 key frame (through libwebp's lossy WebP). */
+export async function svgToVp8(svg: Buffer | string, quality = 70): Promise<Uint8Array> {
+  const webp = await sharp(Buffer.isBuffer(svg) ? svg : Buffer.from(svg))
+    .removeAlpha()
+    .webp({ quality, lossless: false, nearLossless: false, smartSubsample: false })
+    .toBuffer()
+  return vp8FromWebp(webp)
+}
+
+/** VP8 key frames, one after another at a fixed rate, in a WebM container (mediabunny writes it). */
+export async function vp8FramesToWebm(frames: Uint8Array[], framesPerSecond: number, width: number, height: number): Promise<Buffer> {
+  const frameDuration = 1 / framesPerSecond
   const output = new Output({ format: new WebMOutputFormat(), target: new BufferTarget() })
   const source = new EncodedVideoPacketSource('vp8')
-  output.addVideoTrack(source, { frameRate: options.framesPerSecond })
+  output.addVideoTrack(source, { frameRate: framesPerSecond })
   await output.start()
-
-  for (let index = 0; index < frames; index++) {
-    const webp = await sharp(frameSvg(index / Math.max(1, frames - 1), options))
-      .removeAlpha()
-      .webp({ quality: 70, lossless: false, nearLossless: false, smartSubsample: false })
-      .toBuffer()
-    const packet = new EncodedPacket(vp8FromWebp(webp), 'key', index * frameDuration, frameDuration)
+  for (const [index, frame] of frames.entries()) {
+    const packet = new EncodedPacket(frame, 'key', index * frameDuration, frameDuration)
     await source.add(packet, index === 0
-      ? { decoderConfig: { codec: 'vp8', codedWidth: options.width, codedHeight: options.height } }
+      ? { decoderConfig: { codec: 'vp8', codedWidth: width, codedHeight: height } }
       : undefined)
   }
   source.close()

@@ -6,11 +6,12 @@ import { seedExercises } from './exercises'
 import { seedInsights } from './insights'
 import { seedPlan } from './plan'
 import { seedPlayer } from './player'
+import { seedReviews } from './reviews'
 import { seedRoutines } from './routines'
 
 // Each later part of the demo adds its own step here, in the order its data depends on:
 // six weeks of logged history first, then the current block, then this week's logged sessions.
-const steps: SeedStep[] = [seedExercises, seedRoutines, seedInsights, seedPlan, seedPlayer, seedBlocks]
+const steps: SeedStep[] = [seedExercises, seedRoutines, seedInsights, seedPlan, seedPlayer, seedBlocks, seedReviews]
 
 async function main() {
   const url = process.env.DATABASE_URL ?? 'file:.data/switchback.db'

@@ -23,6 +23,8 @@ export const teams = sqliteTable('teams', {
   timezone: text('timezone').notNull().default('UTC'),
   // When the head coach dismissed the first-run checklist on the coach's home.
   checklistDismissedAt: integer('checklist_dismissed_at', { mode: 'timestamp_ms' }),
+  /** Athletes' form-review clips older than this are removed by the media sweep. */
+  reviewRetentionDays: integer('review_retention_days').notNull().default(180),
   ...timestamps,
 })
 
@@ -193,6 +195,10 @@ export const mediaObjects = sqliteTable('media_objects', {
   contentType: text('content_type').notNull(),
   size: integer('size').notNull(),
   status: text('status', { enum: ['pending', 'ready', 'deleted'] }).notNull().default('pending'),
+  // Read from the container at confirm (clips only); null for posters and clips stored before.
+  durationSeconds: real('duration_seconds'),
+  width: integer('width'),
+  height: integer('height'),
   createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
   ...timestamps,
 }, t => [
@@ -226,6 +232,63 @@ export const exercises = sqliteTable('exercises', {
   index('exercises_poster_idx').on(t.posterId),
   index('exercises_created_by_idx').on(t.createdById),
   index('exercises_archived_idx').on(t.teamId, t.archivedAt),
+])
+
+// Form cues pinned to moments of an exercise's clip. They belong to the exercise, not to one file,
+// so replacing the clip keeps them.
+export const clipCues = sqliteTable('clip_cues', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  exerciseId: integer('exercise_id').notNull().references(() => exercises.id, { onDelete: 'cascade' }),
+  startSeconds: real('start_seconds').notNull(),
+  endSeconds: real('end_seconds'),
+  text: text('text').notNull(),
+  createdById: integer('created_by_id').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  index('clip_cues_exercise_idx').on(t.exerciseId, t.startSeconds),
+  index('clip_cues_team_idx').on(t.teamId),
+  index('clip_cues_created_by_idx').on(t.createdById),
+])
+
+// Form review: an athlete's clip of a drill or lift, the coach's comments at moments in it, and a reply clip.
+export const formReviews = sqliteTable('form_reviews', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  athleteId: integer('athlete_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  clipId: integer('clip_id').notNull().references(() => mediaObjects.id, { onDelete: 'cascade' }),
+  question: text('question').notNull().default(''),
+  assignmentId: integer('assignment_id').references(() => assignments.id, { onDelete: 'set null' }),
+  stepId: text('step_id'),
+  /** A library exercise the coach links, whose cues open beside the clip. */
+  exerciseId: integer('exercise_id').references(() => exercises.id, { onDelete: 'set null' }),
+  replyClipId: integer('reply_clip_id').references(() => mediaObjects.id, { onDelete: 'set null' }),
+  status: text('status', { enum: ['open', 'answered'] }).notNull().default('open'),
+  answeredAt: integer('answered_at', { mode: 'timestamp_ms' }),
+  answeredById: integer('answered_by_id').references(() => users.id, { onDelete: 'set null' }),
+  ...timestamps,
+}, t => [
+  index('form_reviews_team_status_idx').on(t.teamId, t.status, t.createdAt),
+  index('form_reviews_athlete_idx').on(t.athleteId),
+  index('form_reviews_clip_idx').on(t.clipId),
+  index('form_reviews_reply_clip_idx').on(t.replyClipId),
+  index('form_reviews_assignment_idx').on(t.assignmentId),
+  index('form_reviews_exercise_idx').on(t.exerciseId),
+  index('form_reviews_answered_by_idx').on(t.answeredById),
+])
+
+export const formReviewComments = sqliteTable('form_review_comments', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  reviewId: integer('review_id').notNull().references(() => formReviews.id, { onDelete: 'cascade' }),
+  authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
+  atSeconds: real('at_seconds').notNull(),
+  text: text('text').notNull(),
+  ...timestamps,
+}, t => [
+  index('form_review_comments_review_idx').on(t.reviewId, t.atSeconds),
+  index('form_review_comments_team_idx').on(t.teamId),
+  index('form_review_comments_author_idx').on(t.authorId),
 ])
 
 export const routines = sqliteTable('routines', {

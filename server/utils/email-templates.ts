@@ -114,6 +114,19 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
       html: layout('Your plan changed', [intro, ...lines, closing], { url, label: 'See your plan' }),
     }
   },
+  review_answered(payload) {
+    const coach = str(payload, 'coachName')
+    const url = str(payload, 'url')
+    const lines = [
+      `Hello ${str(payload, 'athleteName')}, ${coach} has answered the clip you sent for review with ${str(payload, 'teamName')}.`,
+      'Open it to see the comments at their moments in your clip, and any clip your coach sent back.',
+    ]
+    return {
+      subject: `${coach} answered your form review`,
+      text: `${lines.join('\n\n')}\n\n${url}`,
+      html: layout('Your form review is answered', lines, { url, label: 'See the review' }),
+    }
+  },
   password_reset(payload) {
     const url = str(payload, 'url')
     const lines = [

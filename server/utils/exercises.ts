@@ -7,7 +7,7 @@ import type { Caller } from './auth'
 type ExerciseRow = typeof exercises.$inferSelect
 type MediaRow = typeof mediaObjects.$inferSelect
 
-export function exerciseView(row: ExerciseRow, clip?: Pick<MediaRow, 'contentType' | 'size'> | null): ExerciseView {
+export function exerciseView(row: ExerciseRow, clip?: Pick<MediaRow, 'contentType' | 'size'> & Partial<Pick<MediaRow, 'durationSeconds' | 'width' | 'height'>> | null): ExerciseView {
   return {
     id: row.id,
     name: row.name,
@@ -17,7 +17,9 @@ export function exerciseView(row: ExerciseRow, clip?: Pick<MediaRow, 'contentTyp
     equipment: row.equipment,
     cautions: row.cautions,
     hasClip: row.clipId !== null,
-    clip: row.clipId !== null && clip ? { contentType: clip.contentType, size: clip.size } : null,
+    clip: row.clipId !== null && clip
+      ? { contentType: clip.contentType, size: clip.size, durationSeconds: clip.durationSeconds ?? null, width: clip.width ?? null, height: clip.height ?? null }
+      : null,
     hasPoster: row.posterId !== null,
     archivedAt: row.archivedAt ? row.archivedAt.toISOString() : null,
     createdAt: row.createdAt.toISOString(),

@@ -1,6 +1,6 @@
-import { and, eq, inArray } from 'drizzle-orm'
+import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
-import { exercises, routineExercises, routines } from '../db/schema'
+import { clipCues, exercises, routineExercises, routines } from '../db/schema'
 import type { RoutineStep } from '../../shared/utils/timeline'
 
 type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0]
@@ -75,7 +75,15 @@ export async function routineExerciseDetails(db: Database, teamId: number, steps
     clipId: exercises.clipId,
     archivedAt: exercises.archivedAt,
   }).from(exercises).where(and(eq(exercises.teamId, teamId), inArray(exercises.id, ids)))
-  return rows.map(({ clipId, ...row }) => ({ ...row, hasClip: clipId !== null }))
+  // The cues pinned to moments of each clip, for the print card's numbered list with times.
+  const pinned = await db.select({ exerciseId: clipCues.exerciseId, startSeconds: clipCues.startSeconds, text: clipCues.text })
+    .from(clipCues).where(and(eq(clipCues.teamId, teamId), inArray(clipCues.exerciseId, ids)))
+    .orderBy(asc(clipCues.startSeconds), asc(clipCues.id))
+  return rows.map(({ clipId, ...row }) => ({
+    ...row,
+    hasClip: clipId !== null,
+    clipCues: clipId === null ? [] : pinned.filter(cue => cue.exerciseId === row.id).map(({ startSeconds, text }) => ({ startSeconds, text })),
+  }))
 }
 
 export function publicRoutine(routine: typeof routines.$inferSelect) {

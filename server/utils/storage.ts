@@ -159,6 +159,14 @@ export async function putObject(key: string, body: Uint8Array, contentType: stri
   await guarded(() => server.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength })))
 }
 
+/** Why a stored upload is not what was announced (type, size, container signature), or '' when it is. */
+export async function uploadProblem(key: string, stored: { contentType: string, size: number }, announced: { contentType: string, size: number }) {
+  if (stored.contentType !== announced.contentType) return `The stored file is ${stored.contentType || 'of no stated type'}, not ${announced.contentType}`
+  if (stored.size !== announced.size) return `The stored file is ${stored.size} bytes, not the announced ${announced.size}`
+  if (!looksLike(announced.contentType, await readObjectStart(key))) return `The stored file is not a real ${announced.contentType} file`
+  return ''
+}
+
 function ascii(bytes: Uint8Array, start: number, end: number) {
   return String.fromCharCode(...bytes.subarray(start, end))
 }
@@ -181,4 +189,12 @@ export function looksLike(contentType: string, start: Uint8Array): boolean {
     default:
       return false
   }
+}
+
+/** Bytes `start` to `end - 1` of an object (a ranged GET), for reading a container's metadata in place. */
+export async function readObjectRange(key: string, start: number, end: number): Promise<Uint8Array> {
+  const { server, bucket } = useObjectStore()
+  if (end <= start) return new Uint8Array()
+  const object = await guarded(() => server.send(new GetObjectCommand({ Bucket: bucket, Key: key, Range: `bytes=${start}-${end - 1}` })))
+  return object.Body ? await object.Body.transformToByteArray() : new Uint8Array()
 }

@@ -121,7 +121,8 @@ export interface ExerciseView {
   equipment: string[]
   cautions: { text: string, bodyAreas: (typeof bodyAreas)[number][] }[]
   hasClip: boolean
-  clip: { contentType: string, size: number } | null
+  /** Duration and picture size are read from the container at confirm; null when it did not say. */
+  clip: { contentType: string, size: number, durationSeconds: number | null, width: number | null, height: number | null } | null
   hasPoster: boolean
   archivedAt: string | null
   createdAt: string
@@ -132,4 +133,17 @@ export function formatBytes(bytes: number) {
   if (bytes < 1024) return `${bytes} B`
   if (bytes < 1024 * 1024) return `${(bytes / 1024).toFixed(0)} KB`
   return `${(bytes / 1024 / 1024).toFixed(1)} MB`
+}
+
+/** What a coach reads under the clip: type, size, length and picture size, e.g. "WEBM · 120 KB · 4.5 s · 320×240". */
+export function clipDetails(exercise: Pick<ExerciseView, 'clip' | 'hasPoster'>) {
+  const clip = exercise.clip
+  if (!clip) return ''
+  return [
+    clip.contentType.replace('video/', '').replace('quicktime', 'mov').toUpperCase(),
+    formatBytes(clip.size),
+    clip.durationSeconds !== null ? `${clip.durationSeconds.toFixed(1)} s` : null,
+    clip.width && clip.height ? `${clip.width}×${clip.height}` : null,
+    exercise.hasPoster ? 'with poster image' : null,
+  ].filter(Boolean).join(' · ')
 }

@@ -1,7 +1,7 @@
 import { and, eq, sql } from 'drizzle-orm'
 import { idParamsSchema } from '../../../../shared/schemas/common'
 import { EXERCISE_LIMITS } from '../../../../shared/schemas/exercise'
-import { exercises, mediaObjects } from '../../../db/schema'
+import { clipCues, exercises, mediaObjects } from '../../../db/schema'
 import type { Database } from '../../../db/client'
 
 async function freeCopyName(db: Database, teamId: number, name: string) {
@@ -58,6 +58,9 @@ export default defineEventHandler(async (event) => {
         purpose: original.purpose,
         contentType: original.contentType,
         size: original.size,
+        durationSeconds: original.durationSeconds,
+        width: original.width,
+        height: original.height,
         status: 'ready',
         createdById: caller.userId,
       }).returning()
@@ -68,6 +71,13 @@ export default defineEventHandler(async (event) => {
     })
     updated = saved.next
     if (original.purpose === 'clip') clip = saved.row
+  }
+  // The copy's clip says the same things at the same moments.
+  if (clip) {
+    const cues = await listClipCues(db, caller.teamId, exercise.id)
+    if (cues.length) {
+      await db.insert(clipCues).values(cues.map(cue => ({ teamId: caller.teamId, exerciseId: copy!.id, startSeconds: cue.startSeconds, endSeconds: cue.endSeconds, text: cue.text, createdById: caller.userId })))
+    }
   }
   setResponseStatus(event, 201)
   return { ...exerciseView(updated, clip), mediaCopied }

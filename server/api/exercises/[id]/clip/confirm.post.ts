@@ -29,10 +29,7 @@ export default defineEventHandler(async (event) => {
   const stored = await headObject(key)
   if (!stored) rejectKey('Nothing has been uploaded with this key yet')
 
-  let problem = ''
-  if (stored.contentType !== pending.contentType) problem = `The stored file is ${stored.contentType || 'of no stated type'}, not ${pending.contentType}`
-  else if (stored.size !== pending.size) problem = `The stored file is ${stored.size} bytes, not the announced ${pending.size}`
-  else if (!looksLike(pending.contentType, await readObjectStart(key))) problem = `The stored file is not a real ${pending.contentType} file`
+  const problem = await uploadProblem(key, stored, pending)
   if (problem) {
     // Nothing half-written: the object goes, and the record says so, before answering.
     await deleteObject(key)
@@ -40,9 +37,14 @@ export default defineEventHandler(async (event) => {
     rejectKey(`${problem}; it was discarded`)
   }
 
+  // A clip's length and picture size come from its container, read in place with ranged GETs.
+  const metadata = pending.purpose === 'clip' ? await readClipMetadata(key, stored.size) : null
   const replacedId = pending.purpose === 'clip' ? exercise.clipId : exercise.posterId
   const replaced = await db.transaction(async (tx) => {
-    await tx.update(mediaObjects).set({ status: 'ready' }).where(eq(mediaObjects.id, pending.id))
+    await tx.update(mediaObjects).set({
+      status: 'ready',
+      ...(metadata ? { durationSeconds: metadata.durationSeconds, width: metadata.width, height: metadata.height } : {}),
+    }).where(eq(mediaObjects.id, pending.id))
     await tx.update(exercises)
       .set(pending.purpose === 'clip' ? { clipId: pending.id } : { posterId: pending.id })
       .where(and(eq(exercises.id, id), eq(exercises.teamId, caller.teamId)))

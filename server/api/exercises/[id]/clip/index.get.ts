@@ -29,6 +29,10 @@ export default defineEventHandler(async (event) => {
     expiresAt: playback.expiresAt,
     contentType: clip.contentType,
     size: clip.size,
+    durationSeconds: clip.durationSeconds,
+    width: clip.width,
+    height: clip.height,
+    captionsUrl: `/captions/${exercise.id}.vtt`,
     posterUrl: poster ? (await presignPlayback(poster.key)).url : null,
   }
 })

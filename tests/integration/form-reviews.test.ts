@@ -1,0 +1,162 @@
+import { createClient } from '@libsql/client'
+import { HeadObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { makeDemoClip } from '../../seeds/clip'
+import type { ApiClient, FieldError } from '../support/client'
+import { startStack, type Stack } from '../support/stack'
+import { addAthlete, registerCoach } from '../support/team'
+
+interface Review {
+  id: number
+  athleteId: number
+  status: 'open' | 'answered'
+  question: string
+  durationSeconds: number | null
+  clip: { url: string }
+  reply: { url: string } | null
+  exercise: { id: number, name: string, cues: string[] } | null
+  comments: { atSeconds: number, text: string, authorName: string | null }[]
+}
+interface Upload { url: string, key: string }
+
+let stack: Stack
+let s3: S3Client
+let clip: Buffer
+
+beforeAll(async () => {
+  stack = await startStack({ MEDIA_SWEEP_INTERVAL_MS: '300' })
+  s3 = new S3Client({ endpoint: stack.s3.endpoint, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } })
+  clip = await makeDemoClip({ seconds: 3, framesPerSecond: 8 })
+})
+
+afterAll(async () => {
+  s3?.destroy()
+  await stack?.stop()
+})
+
+const exists = (key: string) => s3.send(new HeadObjectCommand({ Bucket: stack.s3.bucket, Key: key })).then(() => true, () => false)
+
+async function sql(statement: string, args: (string | number)[] = []) {
+  const db = createClient({ url: stack.databaseUrl })
+  try {
+    return (await db.execute({ sql: statement, args })).rows
+  }
+  finally {
+    db.close()
+  }
+}
+
+async function put(client: ApiClient, path: string, body: Buffer) {
+  const signed = await client.post<Upload>(path, { contentType: 'video/webm', size: body.byteLength })
+  expect(signed.status, signed.text).toBe(200)
+  expect((await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': 'video/webm' } })).status).toBe(200)
+  return signed.data.key
+}
+
+async function sendForReview(athlete: ApiClient, question = 'Is my knee drive high enough?') {
+  const key = await put(athlete, '/api/reviews/upload-url', clip)
+  const created = await athlete.post<Review>('/api/reviews', { key, question })
+  expect(created.status, created.text).toBe(201)
+  return { key, review: created.data }
+}
+
+describe('form review', () => {
+  it('an athlete sends a clip; the coach comments at moments, links an exercise, replies with a clip and the athlete is e-mailed', async () => {
+    const { coach } = await registerCoach(stack, 'Larchford Ridge Runners')
+    const athlete = await addAthlete(stack, coach, { name: 'Ffion Aske' })
+    const { key, review } = await sendForReview(athlete.athlete)
+    expect(key).toMatch(new RegExp(`/reviews/${athlete.userId}/`))
+    expect(review).toMatchObject({ status: 'open', question: 'Is my knee drive high enough?', comments: [], reply: null })
+    expect(review.durationSeconds).toBeCloseTo(3, 0)
+
+    const queue = await coach.get<{ items: { id: number, athleteName: string }[], openCount: number }>('/api/reviews?status=open')
+    expect(queue.data.openCount).toBe(1)
+    expect(queue.data.items[0]).toMatchObject({ id: review.id, athleteName: 'Ffion Aske' })
+
+    const base = `/api/reviews/${review.id}`
+    expect((await coach.post(`${base}/comments`, { atSeconds: 2, text: 'Knee higher here' })).status).toBe(201)
+    const commented = await coach.post<Review>(`${base}/comments`, { atSeconds: 0.5, text: 'Good tall start' })
+    expect(commented.data.comments.map(comment => [comment.atSeconds, comment.text])).toEqual([[0.5, 'Good tall start'], [2, 'Knee higher here']])
+
+    for (const [body, field, message] of [
+      [{ atSeconds: 1, text: '' }, 'text', /Write the comment/],
+      [{ atSeconds: 1, text: 'x'.repeat(2001) }, 'text', /at most 2000/],
+      [{ atSeconds: 4, text: 'Past the end' }, 'atSeconds', /past the end/],
+      [{ atSeconds: -1, text: 'Before' }, 'atSeconds', /before the clip starts/],
+    ] as const) {
+      const response = await coach.post<FieldError>(`${base}/comments`, body)
+      expect(response.status).toBe(400)
+      expect(response.data.data?.fields?.[field]).toMatch(message)
+    }
+    expect((await athlete.athlete.post(`${base}/comments`, { atSeconds: 1, text: 'Me' })).status).toBe(403)
+
+    const exercise = await coach.post<{ id: number }>('/api/exercises', { name: 'A-skips', category: 'drill', cues: ['Knee drives up'] })
+    const linked = await coach.patch<Review>(base, { exerciseId: exercise.data.id })
+    expect(linked.data.exercise).toMatchObject({ name: 'A-skips', cues: ['Knee drives up'] })
+
+    const replyKey = await put(coach, `${base}/reply-url`, clip)
+    const answered = await coach.post<Review>(`${base}/answer`, { replyKey })
+    expect(answered.status, answered.text).toBe(200)
+    expect(answered.data.status).toBe('answered')
+    expect(answered.data.reply?.url).toBeTruthy()
+    const mail = await stack.mail.waitFor(athlete.email, /answered your form review/)
+    expect(mail.text).toContain(`/reviews/${review.id}`)
+
+    const seen = await athlete.athlete.get<Review>(base)
+    expect(seen.data.comments.map(comment => comment.text)).toEqual(['Good tall start', 'Knee higher here'])
+    expect(seen.data.reply).not.toBeNull()
+    expect((await fetch(seen.data.clip.url)).status).toBe(200)
+  })
+
+  it('keeps each clip to its athlete and the team\'s coaches (404 otherwise), and refuses what is not a short video', async () => {
+    const { coach } = await registerCoach(stack)
+    const athlete = await addAthlete(stack, coach)
+    const teammate = await addAthlete(stack, coach, { name: 'Ivo Penhale' })
+    const { coach: otherCoach } = await registerCoach(stack, 'Another club')
+    const { review } = await sendForReview(athlete.athlete)
+
+    expect((await teammate.athlete.get(`/api/reviews/${review.id}`)).status).toBe(404)
+    expect((await otherCoach.get(`/api/reviews/${review.id}`)).status).toBe(404)
+    expect((await otherCoach.post(`/api/reviews/${review.id}/comments`, { atSeconds: 1, text: 'Hi' })).status).toBe(404)
+    expect((await teammate.athlete.delete(`/api/reviews/${review.id}`)).status).toBe(404)
+    expect((await teammate.athlete.get<{ items: unknown[] }>('/api/reviews')).data.items).toHaveLength(0)
+    expect((await otherCoach.get<{ items: unknown[] }>('/api/reviews')).data.items).toHaveLength(0)
+
+    // Another athlete's key cannot be claimed, and a coach cannot send a clip as an athlete.
+    const key = await put(athlete.athlete, '/api/reviews/upload-url', clip)
+    const stolen = await teammate.athlete.post<FieldError>('/api/reviews', { key })
+    expect(stolen.status).toBe(400)
+    expect(stolen.data.data?.fields?.key).toMatch(/not in this athlete/)
+    expect((await coach.post('/api/reviews/upload-url', { contentType: 'video/webm', size: 10 })).status).toBe(403)
+
+    const tooBig = await athlete.athlete.post<FieldError>('/api/reviews/upload-url', { contentType: 'video/webm', size: 100 * 1024 * 1024 + 1 })
+    expect(tooBig.data.data?.fields?.size).toMatch(/100 MB/)
+    const notVideo = await athlete.athlete.post<FieldError>('/api/reviews/upload-url', { contentType: 'image/png', size: 10 })
+    expect(notVideo.data.data?.fields?.contentType).toMatch(/video/)
+    const longKey = await put(athlete.athlete, '/api/reviews/upload-url', await makeDemoClip({ seconds: 62, framesPerSecond: 1, width: 64, height: 48 }))
+    const tooLong = await athlete.athlete.post<FieldError>('/api/reviews', { key: longKey })
+    expect(tooLong.status).toBe(400)
+    expect(tooLong.data.data?.fields?.key).toMatch(/at most 60 s/)
+    expect(await exists(longKey)).toBe(false)
+  })
+
+  it('an athlete deletes their clip and the object leaves the store; the sweep removes clips past the team\'s retention', async () => {
+    const { coach, teamId } = await registerCoach(stack)
+    const athlete = await addAthlete(stack, coach)
+    const { key, review } = await sendForReview(athlete.athlete)
+    expect(await exists(key)).toBe(true)
+    expect((await coach.delete(`/api/reviews/${review.id}`)).status).toBe(403)
+    expect((await athlete.athlete.delete(`/api/reviews/${review.id}`)).status).toBe(204)
+    expect(await exists(key)).toBe(false)
+    expect((await athlete.athlete.get(`/api/reviews/${review.id}`)).status).toBe(404)
+
+    const old = await sendForReview(athlete.athlete, 'An old one')
+    const fresh = await sendForReview(athlete.athlete, 'A new one')
+    await sql('update teams set review_retention_days = 30 where id = ?', [teamId])
+    await sql('update form_reviews set created_at = ? where id = ?', [Date.now() - 31 * 86_400_000, old.review.id])
+    await expect.poll(() => exists(old.key), { timeout: 10_000 }).toBe(false)
+    expect((await athlete.athlete.get(`/api/reviews/${old.review.id}`)).status).toBe(404)
+    expect((await athlete.athlete.get(`/api/reviews/${fresh.review.id}`)).status).toBe(200)
+    expect(await exists(fresh.key)).toBe(true)
+  })
+})
