@@ -5,6 +5,6 @@ export default defineEventHandler((event) => {
   if (!event.path.startsWith('/api/')) return
   const length = Number(getRequestHeader(event, 'content-length') ?? 0)
   if (length > MAX_BODY_BYTES) {
-    throw createError({ statusCode: 413, statusMessage: 'Payload too large', message: 'The request body is larger than 1 MB', data: { fields: { _: 'The request body is larger than 1 MB' } } })
+    refuseField('_', 'The request body is larger than 1 MB', 413)
   }
 })

@@ -26,7 +26,7 @@ export function isCoachRole(role: Role) {
 export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete'): Promise<Caller> {
   const session = await getUserSession(event)
   if (!session.user || !session.teamId) {
-    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Sign in first' })
+    refuse(401, 'Sign in first')
   }
   const db = await useDb()
   const [row] = await db.select({
@@ -42,10 +42,10 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
     .limit(1)
   if (!row) {
     await clearUserSession(event)
-    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Your membership has ended; sign in again' })
+    refuse(401, 'Your membership has ended; sign in again')
   }
   if (rank[row.role] < rank[minimum]) {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: minimum === 'athlete' ? 'Not allowed' : 'Only coaches can do this' })
+    refuse(403, minimum === 'athlete' ? 'Not allowed' : 'Only coaches can do this')
   }
   event.context.caller = { userId: session.user.id, teamId: session.teamId, ...row }
   return event.context.caller as Caller

@@ -73,11 +73,6 @@ export async function assertExerciseNameFree(db: Database, teamId: number, name:
     ))
     .limit(1)
   if (clash) {
-    throw createError({
-      statusCode: 409,
-      statusMessage: 'Name taken',
-      message: 'name: Your library already has an exercise with this name',
-      data: { fields: { name: 'Your library already has an exercise with this name' } },
-    })
+    refuseField('name', 'Your library already has an exercise with this name', 409)
   }
 }

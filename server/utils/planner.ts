@@ -18,10 +18,6 @@ export interface PlannedAthlete {
   timezone: string
 }
 
-export function tooMany(field: string, message: string): never {
-  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${field}: ${message}`, data: { fields: { [field]: message } } })
-}
-
 /** The athletes of the team currently in a squad (coaches who sit in a squad are not assigned work). */
 export async function squadAthletes(db: Pick<Database, 'select'>, teamId: number, squadId: number): Promise<number[]> {
   const rows = await db.select({ id: squadMembers.userId }).from(squadMembers)

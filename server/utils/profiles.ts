@@ -63,7 +63,7 @@ export async function addInjuryNote(db: Database, teamId: number, athleteId: num
 export async function requireAthlete(event: H3Event) {
   const caller = await requireTeamRole(event, 'athlete')
   if (caller.role !== 'athlete') {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: 'This is for athletes; coaches open an athlete from the team page' })
+    refuse(403, 'This is for athletes; coaches open an athlete from the team page')
   }
   return caller
 }

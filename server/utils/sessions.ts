@@ -38,7 +38,7 @@ export function editableUntil(session: { startedAt: Date }) {
 
 export function assertEditable(session: { startedAt: Date }) {
   if (Date.now() > editableUntil(session).getTime()) {
-    throw createError({ statusCode: 409, statusMessage: 'Too late to edit', message: `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start`, data: { fields: { _: `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start` } } })
+    refuseField('_', `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start`, 409)
   }
 }
 

@@ -19,7 +19,7 @@ export async function assertLoginAllowed(email: string, ip: string) {
     db.select({ n: count() }).from(loginFailures).where(and(eq(loginFailures.ip, ip), gte(loginFailures.at, since))),
   ])
   if ((byEmail?.n ?? 0) >= MAX_PER_EMAIL || (byAddress?.n ?? 0) >= MAX_PER_ADDRESS) {
-    throw createError({ statusCode: 429, statusMessage: 'Too many attempts', message: 'Too many failed sign-ins. Wait 15 minutes or reset your password.' })
+    refuse(429, 'Too many failed sign-ins. Wait 15 minutes or reset your password.')
   }
 }
 

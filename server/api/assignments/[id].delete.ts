@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   const [assignment] = await db.select({ id: assignments.id }).from(assignments).where(and(eq(assignments.id, id), eq(assignments.teamId, caller.teamId))).limit(1)
   if (!assignment) notFound('No such assignment')
   const [log] = await db.select({ id: sessionLogs.id }).from(sessionLogs).where(eq(sessionLogs.assignmentId, id)).limit(1)
-  if (log) throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This session has been logged; it stays in the athlete\'s record' })
+  if (log) refuse(409, 'This session has been logged; it stays in the athlete\'s record')
   await db.delete(assignments).where(and(eq(assignments.id, id), eq(assignments.teamId, caller.teamId)))
   setResponseStatus(event, 204)
   return null

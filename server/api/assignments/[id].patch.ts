@@ -12,7 +12,7 @@ export default defineEventHandler(async (event) => {
   const [assignment] = await db.select().from(assignments).where(and(eq(assignments.id, id), eq(assignments.teamId, caller.teamId))).limit(1)
   if (!assignment) notFound('No such assignment')
   if (body.date && body.date !== assignment.date && assignment.status !== 'planned') {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'date: This session has been logged, so it stays on its day', data: { fields: { date: 'This session has been logged, so it stays on its day' } } })
+    refuseField('date', 'This session has been logged, so it stays on its day', 409)
   }
   const [updated] = await db.update(assignments)
     .set({ ...(body.date ? { date: body.date } : {}), ...(body.note !== undefined ? { note: body.note } : {}) })

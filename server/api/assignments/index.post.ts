@@ -12,17 +12,17 @@ export default defineEventHandler(async (event) => {
   if (body.squadId) {
     await findTeamSquad(db, caller.teamId, body.squadId)
     const members = await squadAthletes(db, caller.teamId, body.squadId)
-    if (!members.length && !ids.size) tooMany('squadId', 'This squad has no athletes yet')
+    if (!members.length && !ids.size) refuseField('squadId', 'This squad has no athletes yet')
     members.forEach(id => ids.add(id))
   }
   const athletes = await assertTeamAthletes(db, caller.teamId, [...ids])
   for (const key of Object.keys(body.athleteNotes ?? {})) {
-    if (!ids.has(Number(key))) tooMany(`athleteNotes.${key}`, 'This athlete is not in the batch')
+    if (!ids.has(Number(key))) refuseField(`athleteNotes.${key}`, 'This athlete is not in the batch')
   }
 
   const dates = body.series ? seriesDates(body.series) : [...new Set(body.dates)].sort()
   if (dates.length * athletes.length > MAX_BATCH_ASSIGNMENTS) {
-    tooMany(body.series ? 'series' : 'dates', `That makes ${dates.length * athletes.length} sessions; assign at most ${MAX_BATCH_ASSIGNMENTS} at once`)
+    refuseField(body.series ? 'series' : 'dates', `That makes ${dates.length * athletes.length} sessions; assign at most ${MAX_BATCH_ASSIGNMENTS} at once`)
   }
 
   const { routine, snapshot } = await snapshotRoutine(db, caller.teamId, body.routineId)

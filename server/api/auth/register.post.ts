@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const db = await useDb()
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).limit(1)
   if (existing) {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'An account with this e-mail already exists', data: { fields: { email: 'An account with this e-mail already exists; sign in instead' } } })
+    refuse(409, 'An account with this e-mail already exists', { email: 'An account with this e-mail already exists; sign in instead' })
   }
   const passwordHash = await hashPassword(input.password)
   const { user, team } = await db.transaction(async (tx) => {

@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const today = todayIn(caller.timezone)
   const from = query.from ?? addDays(today, -(query.missedDays ?? 0))
   const to = query.to ?? addDays(query.from ?? today, 27)
-  if (to < from) tooMany('to', 'The end comes before the start')
+  if (to < from) refuseField('to', 'The end comes before the start')
   const db = await useDb()
   const rows = await db.select({
     id: assignments.id,

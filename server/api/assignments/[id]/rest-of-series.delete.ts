@@ -15,7 +15,7 @@ export default defineEventHandler(async (event) => {
   const [assignment] = await db.select().from(assignments).where(and(eq(assignments.id, id), eq(assignments.teamId, caller.teamId))).limit(1)
   if (!assignment) notFound('No such assignment')
   if (!assignment.seriesId) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'id: This assignment is not part of a weekly series', data: { fields: { id: 'This assignment is not part of a weekly series' } } })
+    refuseField('id', 'This assignment is not part of a weekly series')
   }
   const removed = await db.delete(assignments).where(and(
     eq(assignments.teamId, caller.teamId),

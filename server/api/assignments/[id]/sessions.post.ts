@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
   const assignment = await findOwnAssignment(db, caller, id)
   const now = Date.now()
   if (body.startedAt && (body.startedAt > now + CLOCK_SKEW_MS || body.startedAt < now - EARLIEST_START_MS)) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'startedAt: A session starts within the last 7 days', data: { fields: { startedAt: 'A session starts within the last 7 days' } } })
+    refuseField('startedAt', 'A session starts within the last 7 days')
   }
   const startedAt = new Date(Math.min(body.startedAt ?? now, now))
   const inserted = await db.insert(sessionLogs).values({
@@ -33,7 +33,7 @@ export default defineEventHandler(async (event) => {
         .where(and(eq(sessionLogs.athleteId, caller.userId), eq(sessionLogs.clientId, body.clientId))).limit(1)
   if (!session) notFound('No such session')
   if (session.assignmentId !== assignment.id) {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This clientId already belongs to another session', data: { fields: { clientId: 'This clientId already belongs to another session' } } })
+    refuse(409, 'This clientId already belongs to another session', { clientId: 'This clientId already belongs to another session' })
   }
   setResponseStatus(event, inserted.length ? 201 : 200)
   return sessionView(session)

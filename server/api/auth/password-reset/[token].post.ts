@@ -9,13 +9,13 @@ export default defineEventHandler(async (event) => {
   const [reset] = await db.select().from(passwordResets).where(eq(passwordResets.tokenHash, hashToken(token))).limit(1)
   if (!reset) notFound('This reset link is not valid')
   if (reset.usedAt || reset.expiresAt.getTime() < Date.now()) {
-    throw createError({ statusCode: 410, statusMessage: 'Gone', message: 'This reset link has expired or was already used; ask for a new one' })
+    refuse(410, 'This reset link has expired or was already used; ask for a new one')
   }
   const passwordHash = await hashPassword(password)
   await db.transaction(async (tx) => {
     const used = await tx.update(passwordResets).set({ usedAt: new Date() })
       .where(and(eq(passwordResets.id, reset.id), isNull(passwordResets.usedAt))).returning({ id: passwordResets.id })
-    if (used.length === 0) throw createError({ statusCode: 410, statusMessage: 'Gone', message: 'This reset link was already used' })
+    if (used.length === 0) refuse(410, 'This reset link was already used')
     await tx.update(users).set({ passwordHash }).where(eq(users.id, reset.userId))
   })
   await clearLoginFailures((await db.select({ email: users.email }).from(users).where(eq(users.id, reset.userId)))[0]?.email ?? '')

@@ -24,7 +24,7 @@ export default defineEventHandler(async (event) => {
   if (!assignment) notFound('No such session')
   const segment = loggableKeys(assignment.snapshot).find(item => item.key === entryKey(body))
   if (!segment) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'stepId: This routine has no such set or interval to log', data: { fields: { stepId: 'This routine has no such set or interval to log' } } })
+    refuseField('stepId', 'This routine has no such set or interval to log')
   }
 
   // The snapshot may name an exercise the library has since deleted; the entry then keeps no link.

@@ -3,10 +3,6 @@ import { idParamsSchema } from '../../../../../shared/schemas/common'
 import { clipConfirmSchema } from '../../../../../shared/schemas/exercise'
 import { exercises, mediaObjects } from '../../../../db/schema'
 
-function rejectKey(message: string): never {
-  throw createError({ statusCode: 400, statusMessage: 'Invalid upload', message: `key: ${message}`, data: { fields: { key: message } } })
-}
-
 /**
  * Marks an upload ready once the stored object proves to be what was announced: HEAD for type and
  * size, then its first bytes for the container signature. A mismatch deletes the object.
@@ -18,16 +14,16 @@ export default defineEventHandler(async (event) => {
   const db = await useDb()
   const { exercise } = await findTeamExercise(db, caller, id)
 
-  if (!key.startsWith(exercisePrefix(caller.teamId, id)) || key.includes('..')) rejectKey('This key is not in this exercise\'s storage')
+  if (!key.startsWith(exercisePrefix(caller.teamId, id)) || key.includes('..')) refuseField('key', 'This key is not in this exercise\'s storage')
   const [pending] = await db.select().from(mediaObjects)
     .where(and(eq(mediaObjects.key, key), eq(mediaObjects.teamId, caller.teamId), eq(mediaObjects.exerciseId, id)))
     .limit(1)
-  if (!pending) rejectKey('No upload was started with this key')
-  if (pending.status === 'ready') rejectKey('This upload is already confirmed')
-  if (pending.status === 'deleted') rejectKey('This upload was removed; start a new one')
+  if (!pending) refuseField('key', 'No upload was started with this key')
+  if (pending.status === 'ready') refuseField('key', 'This upload is already confirmed')
+  if (pending.status === 'deleted') refuseField('key', 'This upload was removed; start a new one')
 
   const stored = await headObject(key)
-  if (!stored) rejectKey('Nothing has been uploaded with this key yet')
+  if (!stored) refuseField('key', 'Nothing has been uploaded with this key yet')
 
   let problem = ''
   if (stored.contentType !== pending.contentType) problem = `The stored file is ${stored.contentType || 'of no stated type'}, not ${pending.contentType}`
@@ -37,7 +33,7 @@ export default defineEventHandler(async (event) => {
     // Nothing half-written: the object goes, and the record says so, before answering.
     await deleteObject(key)
     await db.update(mediaObjects).set({ status: 'deleted' }).where(eq(mediaObjects.id, pending.id))
-    rejectKey(`${problem}; it was discarded`)
+    refuseField('key', `${problem}; it was discarded`)
   }
 
   const replacedId = pending.purpose === 'clip' ? exercise.clipId : exercise.posterId
