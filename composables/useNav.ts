@@ -8,8 +8,7 @@ export function useNav() {
   const { session, loggedIn } = useUserSession()
   const links = computed<NavLink[]>(() => {
     if (!loggedIn.value) return []
-    const role = session.value?.role
-    if (role === 'coach' || role === 'head_coach') {
+    if (isCoachRole(session.value?.role)) {
       return [
         { to: '/coach', label: 'Overview' },
         { to: '/exercises', label: 'Library' },

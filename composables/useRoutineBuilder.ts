@@ -1,5 +1,5 @@
 import type { InjectionKey } from 'vue'
-import type { BlockKind } from '#shared/utils/timeline'
+import type { BlockKind } from '#shared/schemas/routine-steps'
 
 // Our own colours for the kinds of step, from the app palette: effort in clay, recovery in ridge blue,
 // warm-up and cool-down in two pines, rest in granite. Used by step cards, the timeline bar and the legend.

@@ -8,7 +8,7 @@ export default defineNuxtRouteMiddleware((to) => {
     if (isPublic) return
     return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : undefined })
   }
-  const isCoach = session.value?.role === 'coach' || session.value?.role === 'head_coach'
+  const isCoach = isCoachRole(session.value?.role)
   if (to.path === '/login' || to.path === '/register' || to.path === '/') return navigateTo(isCoach ? '/coach' : '/today')
   if (to.meta.coachOnly && !isCoach) return navigateTo('/today')
 })

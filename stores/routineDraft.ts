@@ -2,7 +2,8 @@ import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import { routineMetaSchema, type RoutineCategory } from '#shared/schemas/routine'
 import type { ExerciseCaution } from '#shared/types/domain'
-import { buildTimeline, MAX_NESTING, routineStepsSchema, type BlockKind, type BlockStep, type RepeatStep, type RoutineStep, type SetsStep } from '#shared/utils/timeline'
+import { MAX_NESTING, routineStepsSchema, type BlockKind, type BlockStep, type RepeatStep, type RoutineStep, type SetsStep } from '#shared/schemas/routine-steps'
+import { buildTimeline } from '#shared/utils/timeline'
 
 export const ROOT = 'root'
 export const HISTORY_LIMIT = 100

@@ -1,6 +1,6 @@
 import { relations, sql } from 'drizzle-orm'
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
 import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
 
 const timestamps = {

@@ -3,8 +3,6 @@ import { and, eq } from 'drizzle-orm'
 import type { Role } from '../../shared/types/domain'
 import { memberships, teams, users } from '../db/schema'
 
-const rank: Record<Role, number> = { athlete: 0, coach: 1, head_coach: 2 }
-
 export interface Caller {
   userId: number
   teamId: number
@@ -13,10 +11,6 @@ export interface Caller {
   email: string
   timezone: string
   teamName: string
-}
-
-export function isCoachRole(role: Role) {
-  return rank[role] >= rank.coach
 }
 
 /**
@@ -44,7 +38,7 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
     await clearUserSession(event)
     refuse(401, 'Your membership has ended; sign in again')
   }
-  if (rank[row.role] < rank[minimum]) {
+  if (!hasRole(row.role, minimum)) {
     refuse(403, minimum === 'athlete' ? 'Not allowed' : 'Only coaches can do this')
   }
   event.context.caller = { userId: session.user.id, teamId: session.teamId, ...row }
@@ -53,6 +47,15 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
 
 export async function requireCoach(event: H3Event) {
   return requireTeamRole(event, 'coach')
+}
+
+/** The guard of every athlete-only route (`/api/me/*`, sessions, entries): coaches get a 403. */
+export async function requireAthlete(event: H3Event) {
+  const caller = await requireTeamRole(event, 'athlete')
+  if (caller.role !== 'athlete') {
+    refuse(403, 'This is for athletes; coaches open an athlete from the team page')
+  }
+  return caller
 }
 
 /** The role in the session only shapes the client; every route re-reads it from the database. */

@@ -1,4 +1,3 @@
-import type { H3Event } from 'h3'
 import { and, asc, desc, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { athleteProfiles, injuryNotes } from '../db/schema'
@@ -57,13 +56,4 @@ export async function saveProfile(db: Database, teamId: number, athleteId: numbe
 export async function addInjuryNote(db: Database, teamId: number, athleteId: number, values: { bodyArea: string, note: string, since?: string | null, status: 'active' | 'resolved' }) {
   const [note] = await db.insert(injuryNotes).values({ teamId, athleteId, ...values }).returning()
   return note!
-}
-
-/** Profiles and logs belong to athletes: coaches get a 403 on the athlete's own routes. */
-export async function requireAthlete(event: H3Event) {
-  const caller = await requireTeamRole(event, 'athlete')
-  if (caller.role !== 'athlete') {
-    refuse(403, 'This is for athletes; coaches open an athlete from the team page')
-  }
-  return caller
 }

@@ -1,7 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { exercises, routineExercises, routines } from '../db/schema'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
 
 type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0]
 

@@ -7,7 +7,3 @@ export function loggableKeys(snapshot: AssignmentSnapshot) {
     .filter(segment => segment.loggable)
     .map(segment => ({ key: segment.key, stepId: segment.stepId, exerciseId: segment.exerciseId, set: segment.set, round: segment.round }))
 }
-
-export function entryKey(entry: { stepId: string, round?: number | null, set?: number | null }) {
-  return `${entry.stepId}:${entry.round ?? 0}:${entry.set ?? 0}`
-}

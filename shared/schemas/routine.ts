@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { routineStepsSchema } from '../utils/timeline'
+import { routineStepsSchema } from './routine-steps'
 
 export const routineCategories = ['strength', 'hills', 'drills', 'mixed'] as const
 export type RoutineCategory = typeof routineCategories[number]

@@ -1,4 +1,4 @@
-import type { RoutineStep } from '../utils/timeline'
+import type { RoutineStep } from '../schemas/routine-steps'
 
 export const bodyAreas = ['achilles', 'calf', 'knee', 'hip', 'lower_back', 'hamstring', 'quad', 'shin', 'foot', 'ankle', 'glute', 'groin', 'shoulder', 'neck'] as const
 export type BodyArea = typeof bodyAreas[number]

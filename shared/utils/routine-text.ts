@@ -1,4 +1,4 @@
-import type { BlockKind, Measure, PaceZone, RoutineStep, Target } from './timeline'
+import type { BlockKind, Measure, PaceZone, RoutineStep, Target } from '../schemas/routine-steps'
 import { formatDuration } from './pace'
 
 // Plain words for the parts of a step, shared by the builder, the preview and the print card.

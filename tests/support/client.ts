@@ -1,3 +1,4 @@
+import type { RefusalData } from '../../shared/utils/errors'
 /** A small HTTP client with its own cookie jar: one per signed-in person in a test. */
 export class ApiClient {
   private cookies = new Map<string, string>()
@@ -46,4 +47,4 @@ export function uniqueEmail(prefix = 'person') {
   return `${prefix}.${Date.now().toString(36)}${counter}@example.test`
 }
 
-export interface FieldError { statusCode: number, message: string, data?: { fields?: Record<string, string> } }
+export interface FieldError { statusCode: number, message: string, data?: RefusalData }

@@ -6,7 +6,7 @@ import { addDays, todayIn } from '../../../shared/utils/dates'
 
 /** The caller's own assignments (default: today and the next four weeks, plus `missedDays` before today), in their time zone. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const query = queryWith(event, myAssignmentRangeSchema)
   const today = todayIn(caller.timezone)
   const from = query.from ?? addDays(today, -(query.missedDays ?? 0))

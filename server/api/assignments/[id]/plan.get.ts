@@ -5,7 +5,7 @@ import { exercises, sessionLogs } from '../../../db/schema'
 
 /** The assigned athlete's own session plan: segments with their paces and loads, and the cautions. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const db = await useDb()
   const assignment = await findOwnAssignment(db, caller, id)

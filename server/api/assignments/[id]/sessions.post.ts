@@ -9,7 +9,7 @@ const CLOCK_SKEW_MS = 5 * 60_000
 
 /** Starts a session of the caller's assignment; the same clientId always answers the same session. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const body = await readBodyWith(event, startSessionSchema)
   const db = await useDb()

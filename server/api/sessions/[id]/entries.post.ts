@@ -5,7 +5,7 @@ import { assignments, entryLogs, exercises } from '../../../db/schema'
 
 /** Logs one set or interval. A repeated idempotency key answers 200 with the first result, unchanged. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const body = await readBodyWith(event, entrySchema)
   const db = await useDb()
@@ -22,7 +22,7 @@ export default defineEventHandler(async (event) => {
   const [assignment] = await db.select({ snapshot: assignments.snapshot }).from(assignments)
     .where(and(eq(assignments.id, session.assignmentId), eq(assignments.teamId, caller.teamId))).limit(1)
   if (!assignment) notFound('No such session')
-  const segment = loggableKeys(assignment.snapshot).find(item => item.key === entryKey(body))
+  const segment = loggableKeys(assignment.snapshot).find(item => item.key === segmentKey(body))
   if (!segment) {
     refuseField('stepId', 'This routine has no such set or interval to log')
   }

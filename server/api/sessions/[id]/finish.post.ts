@@ -6,7 +6,7 @@ import { assignments, entryLogs, injuryNotes, painFlags, sessionLogs } from '../
 
 /** Ends a session: effort, pain and note; stores the session load, flags pain, marks the assignment. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const body = await readBodyWith(event, finishSessionSchema)
   const db = await useDb()
@@ -33,7 +33,7 @@ export default defineEventHandler(async (event) => {
     db.select({ area: sessionLogs.painArea }).from(sessionLogs)
       .where(and(eq(sessionLogs.athleteId, caller.userId), eq(sessionLogs.teamId, caller.teamId), ne(sessionLogs.id, session.id), isNotNull(sessionLogs.painArea))),
   ])
-  const logged = new Set(entries.map(entryKey))
+  const logged = new Set(entries.map(entry => segmentKey(entry)))
   const expected = loggableKeys(assignment.snapshot)
   const status = expected.every(segment => logged.has(segment.key)) ? 'done' : 'partial'
 
