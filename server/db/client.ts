@@ -9,14 +9,17 @@ export type Database = LibSQLDatabase<typeof schema> & { $client: Client }
 
 export const defaultDatabaseUrl = 'file:.data/switchback.db'
 
-/** Opens a database by URL. Plain Node (no Nuxt), so scripts, seeds and benchmarks share it. */
-export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> {
+/**
+ * Opens a database by URL. Plain Node (no Nuxt), so scripts, seeds and benchmarks share it; the server
+ * passes its config (server/utils/db.ts), scripts pass their own environment.
+ */
+export async function openDatabase(url = defaultDatabaseUrl, authToken?: string): Promise<Database> {
   if (url.startsWith('file:')) {
     // libSQL does not create folders for a file database.
     const file = url.slice('file:'.length)
     mkdirSync(dirname(resolve(file)), { recursive: true })
   }
-  const client = createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN })
+  const client = createClient({ url, authToken })
   if (url.startsWith('file:')) {
     await client.execute('PRAGMA journal_mode = WAL')
     await client.execute('PRAGMA busy_timeout = 5000')
@@ -27,9 +30,9 @@ export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> 
 }
 
 /** The source folder in development and tests; the built server's own copy in production. */
-export function findMigrationsFolder(): string {
+export function findMigrationsFolder(configured?: string): string {
   const candidates = [
-    process.env.MIGRATIONS_DIR,
+    configured,
     resolve(process.cwd(), 'server/db/migrations'),
     process.argv[1] ? resolve(dirname(process.argv[1]), 'migrations') : undefined,
   ].filter((path): path is string => Boolean(path))

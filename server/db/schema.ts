@@ -1,7 +1,7 @@
-import { relations, sql } from 'drizzle-orm'
+import { sql } from 'drizzle-orm'
 import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
 import type { RoutineStep } from '#shared/schemas/routine-steps'
-import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
+import type { AssignmentSnapshot, ExerciseCaution } from '#shared/types/domain'
 
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
@@ -336,52 +336,3 @@ export const painFlags = sqliteTable('pain_flags', {
   index('pain_flags_session_idx').on(t.sessionId),
   index('pain_flags_acknowledged_by_idx').on(t.acknowledgedById),
 ])
-
-export const teamsRelations = relations(teams, ({ many }) => ({
-  memberships: many(memberships),
-  squads: many(squads),
-}))
-
-export const usersRelations = relations(users, ({ many, one }) => ({
-  memberships: many(memberships),
-  profile: one(athleteProfiles, { fields: [users.id], references: [athleteProfiles.userId] }),
-  injuryNotes: many(injuryNotes),
-}))
-
-export const membershipsRelations = relations(memberships, ({ one }) => ({
-  team: one(teams, { fields: [memberships.teamId], references: [teams.id] }),
-  user: one(users, { fields: [memberships.userId], references: [users.id] }),
-}))
-
-export const squadsRelations = relations(squads, ({ one, many }) => ({
-  team: one(teams, { fields: [squads.teamId], references: [teams.id] }),
-  members: many(squadMembers),
-}))
-
-export const squadMembersRelations = relations(squadMembers, ({ one }) => ({
-  squad: one(squads, { fields: [squadMembers.squadId], references: [squads.id] }),
-  user: one(users, { fields: [squadMembers.userId], references: [users.id] }),
-}))
-
-export const injuryNotesRelations = relations(injuryNotes, ({ one }) => ({
-  athlete: one(users, { fields: [injuryNotes.athleteId], references: [users.id] }),
-}))
-
-export const exercisesRelations = relations(exercises, ({ one }) => ({
-  clip: one(mediaObjects, { fields: [exercises.clipId], references: [mediaObjects.id] }),
-}))
-
-export const assignmentsRelations = relations(assignments, ({ one, many }) => ({
-  athlete: one(users, { fields: [assignments.athleteId], references: [users.id] }),
-  routine: one(routines, { fields: [assignments.routineId], references: [routines.id] }),
-  sessions: many(sessionLogs),
-}))
-
-export const sessionLogsRelations = relations(sessionLogs, ({ one, many }) => ({
-  assignment: one(assignments, { fields: [sessionLogs.assignmentId], references: [assignments.id] }),
-  entries: many(entryLogs),
-}))
-
-export const entryLogsRelations = relations(entryLogs, ({ one }) => ({
-  session: one(sessionLogs, { fields: [entryLogs.sessionId], references: [sessionLogs.id] }),
-}))

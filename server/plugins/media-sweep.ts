@@ -1,6 +1,6 @@
 // Clears abandoned clip uploads now and then (every 10 minutes unless MEDIA_SWEEP_INTERVAL_MS says otherwise).
 export default defineNitroPlugin((nitro) => {
-  const interval = Number(process.env.MEDIA_SWEEP_INTERVAL_MS) || 10 * 60_000
+  const interval = useServerConfig().mediaSweepIntervalMs
   const timer = setInterval(() => {
     sweepAbandonedUploads().catch(error => console.error('Media sweep failed:', error))
   }, interval)

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { and, eq } from 'drizzle-orm'
-import type { Role } from '../../shared/types/domain'
+import type { Role } from '#shared/types/domain'
 import { memberships, teams, users } from '../db/schema'
 
 export interface Caller {

@@ -1,5 +1,5 @@
 // Plain-text and simple HTML bodies for every message the app sends, in our own words.
-import { formatDay, isCalendarDay } from '../../shared/utils/dates'
+import { formatDay, isCalendarDay } from '#shared/utils/dates'
 
 export interface RenderedEmail {
   subject: string

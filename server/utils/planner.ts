@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, memberships, squadMembers, squads, users } from '../db/schema'
-import type { AssignmentSnapshot } from '../../shared/types/domain'
+import type { AssignmentSnapshot } from '#shared/types/domain'
 
 /** A transaction or the database: anything that can read and write. */
 export type Writer = Pick<Database, 'insert' | 'select' | 'update' | 'delete'>

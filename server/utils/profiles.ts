@@ -1,9 +1,9 @@
 import { and, asc, desc, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { athleteProfiles, injuryNotes } from '../db/schema'
-import type { ProfilePatch } from '../../shared/schemas/profile'
-import { hrMaxTanaka } from '../../shared/utils/heart'
-import { trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
+import type { ProfilePatch } from '#shared/schemas/profile'
+import { hrMaxTanaka } from '#shared/utils/heart'
+import { trainingPaces, type TrainingPaces } from '#shared/utils/pace'
 
 /** The profile page's data: stored values, injury notes, and what the app derives from them. */
 export async function loadProfileView(db: Database, teamId: number, athlete: { id: number, name: string }) {

@@ -1,5 +1,5 @@
-import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { planSession } from '../../shared/utils/session-plan'
+import type { AssignmentSnapshot } from '#shared/types/domain'
+import { planSession } from '#shared/utils/session-plan'
 
 /** The loggable segments' keys (step:round:set) of a snapshot: what "done" means for an assignment. */
 export function loggableKeys(snapshot: AssignmentSnapshot) {

@@ -3,7 +3,7 @@ import type { Database } from '../db/client'
 import type { entryLogs } from '../db/schema'
 import { assignments, memberships, sessionLogs, users } from '../db/schema'
 import type { Caller } from './auth'
-import { EDIT_WINDOW_DAYS } from '../../shared/schemas/session'
+import { EDIT_WINDOW_DAYS } from '#shared/schemas/session'
 
 /** An assignment of the calling athlete; anyone else's (or another team's) is a 404. */
 export async function findOwnAssignment(db: Database, caller: Caller, id: number) {

@@ -1,7 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { exercises, routines } from '../db/schema'
-import type { AssignmentSnapshot } from '../../shared/types/domain'
+import type { AssignmentSnapshot } from '#shared/types/domain'
 import type { RoutineStep } from '#shared/schemas/routine-steps'
 
 type Reader = Pick<Database, 'select'>

@@ -10,7 +10,7 @@ import {
   type S3ClientConfig,
 } from '@aws-sdk/client-s3'
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner'
-import { mediaExtensions } from '../../shared/schemas/exercise'
+import { mediaExtensions } from '#shared/schemas/exercise'
 
 export const UPLOAD_URL_SECONDS = 10 * 60
 export const PLAYBACK_URL_SECONDS = 15 * 60
@@ -147,11 +147,6 @@ export async function deleteObjectQuietly(key: string) {
 export async function copyObject(fromKey: string, toKey: string) {
   const { server, bucket } = useObjectStore()
   await guarded(() => server.send(new CopyObjectCommand({ Bucket: bucket, Key: toKey, CopySource: `${bucket}/${encodeURIComponent(fromKey).replaceAll('%2F', '/')}` })))
-}
-
-export async function putObject(key: string, body: Uint8Array, contentType: string) {
-  const { server, bucket } = useObjectStore()
-  await guarded(() => server.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength })))
 }
 
 function ascii(bytes: Uint8Array, start: number, end: number) {

@@ -7,7 +7,7 @@ const MAX_PER_EMAIL = 5
 const MAX_PER_ADDRESS = 30
 
 export function clientAddress(event: H3Event) {
-  return getRequestIP(event, { xForwardedFor: process.env.TRUST_PROXY === 'true' }) ?? 'unknown'
+  return getRequestIP(event, { xForwardedFor: useServerConfig().trustProxy }) ?? 'unknown'
 }
 
 /** 429 once an e-mail or an address has failed too often in the last 15 minutes. */

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { assignments, sessionLogs } from '../../db/schema'
-import { idParamsSchema } from '../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 
 /** Removes one assignment; one with a logged session stays, because the log belongs to it. */
 export default defineEventHandler(async (event) => {

@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { assignments } from '../../db/schema'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { assignmentPatchSchema } from '../../../shared/schemas/planner'
+import { idParamsSchema } from '#shared/schemas/common'
+import { assignmentPatchSchema } from '#shared/schemas/planner'
 
 /** Moves an assignment to another day and/or changes its note. Work already done stays on its day. */
 export default defineEventHandler(async (event) => {

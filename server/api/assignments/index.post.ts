@@ -1,6 +1,6 @@
 import { assignmentSeries } from '../../db/schema'
-import { assignSchema } from '../../../shared/schemas/planner'
-import { seriesDates } from '../../../shared/utils/dates'
+import { assignSchema } from '#shared/schemas/planner'
+import { seriesDates } from '#shared/utils/dates'
 
 /** Assigns a routine to athletes and/or a squad on dates or a weekly repeat: one transaction, one e-mail per athlete. */
 export default defineEventHandler(async (event) => {

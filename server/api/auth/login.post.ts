@@ -1,5 +1,5 @@
 import { desc, eq } from 'drizzle-orm'
-import { loginSchema } from '../../../shared/schemas/auth'
+import { loginSchema } from '#shared/schemas/auth'
 import { memberships, teams, users } from '../../db/schema'
 
 const wrong = () => refuse(401, 'E-mail or password is wrong')

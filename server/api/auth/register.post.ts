@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { registerSchema } from '../../../shared/schemas/auth'
+import { registerSchema } from '#shared/schemas/auth'
 import { memberships, teams, users } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

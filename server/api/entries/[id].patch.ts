@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { entryPatchSchema } from '../../../shared/schemas/session'
+import { idParamsSchema } from '#shared/schemas/common'
+import { entryPatchSchema } from '#shared/schemas/session'
 import { entryLogs } from '../../db/schema'
 
 /** Corrects a logged set or interval, by its athlete, within the edit window. */

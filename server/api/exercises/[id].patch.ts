@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { exercisePatchSchema } from '../../../shared/schemas/exercise'
+import { idParamsSchema } from '#shared/schemas/common'
+import { exercisePatchSchema } from '#shared/schemas/exercise'
 import { exercises } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

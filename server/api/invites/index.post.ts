@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm'
-import { inviteSchema } from '../../../shared/schemas/auth'
+import { inviteSchema } from '#shared/schemas/auth'
 import { invites, memberships, squads, users } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,8 +1,8 @@
 import { and, asc, eq, gte, lte } from 'drizzle-orm'
 import { assignments } from '../../db/schema'
-import { myAssignmentRangeSchema } from '../../../shared/schemas/planner'
-import { shownStatus } from '../../../shared/utils/assignment-status'
-import { addDays, todayIn } from '../../../shared/utils/dates'
+import { myAssignmentRangeSchema } from '#shared/schemas/planner'
+import { shownStatus } from '#shared/utils/assignment-status'
+import { addDays, todayIn } from '#shared/utils/dates'
 
 /** The caller's own assignments (default: today and the next four weeks, plus `missedDays` before today), in their time zone. */
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { athleteInsightsQuerySchema } from '../../../shared/schemas/insights'
+import { athleteInsightsQuerySchema } from '#shared/schemas/insights'
 
 /** The signed-in athlete's own insights (the same payload a coach sees for them). */
 export default defineEventHandler(async (event) => {

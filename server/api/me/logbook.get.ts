@@ -1,4 +1,4 @@
-import { logbookQuerySchema } from '../../../shared/schemas/session'
+import { logbookQuerySchema } from '#shared/schemas/session'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireAthlete(event)

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { users } from '../../db/schema'
-import { notificationsSchema } from '../../../shared/schemas/planner'
+import { notificationsSchema } from '#shared/schemas/planner'
 
 /** Turns the "new training" e-mails on or off for the caller. */
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { athleteProfiles } from '../../db/schema'
-import { racePaceTable } from '../../../shared/utils/race-paces'
+import { racePaceTable } from '#shared/utils/race-paces'
 
 /** Race equivalents and training paces from the signed-in athlete's benchmark race, in km and mile units. */
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { and, eq, sql } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { routineUpdateSchema } from '../../../shared/schemas/routine'
+import { idParamsSchema } from '#shared/schemas/common'
+import { routineUpdateSchema } from '#shared/schemas/routine'
 import { routines } from '../../db/schema'
 
 /** Saves the whole routine if nobody saved since `version` was read; a stale save is a 409. */

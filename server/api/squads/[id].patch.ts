@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { squadSchema } from '../../../shared/schemas/auth'
-import { idParamsSchema } from '../../../shared/schemas/common'
+import { squadSchema } from '#shared/schemas/auth'
+import { idParamsSchema } from '#shared/schemas/common'
 import { squads } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,8 +1,8 @@
 import { and, asc, eq, gte, isNull } from 'drizzle-orm'
 import ical, { ICalCalendarMethod } from 'ical-generator'
 import { assignments, calendarFeeds, memberships, teams, users } from '../../db/schema'
-import { statusLabels, shownStatus, routineCategoryLabels } from '../../../shared/utils/assignment-status'
-import { addDays, dayToUtcDate, todayIn } from '../../../shared/utils/dates'
+import { statusLabels, shownStatus, routineCategoryLabels } from '#shared/utils/assignment-status'
+import { addDays, dayToUtcDate, todayIn } from '#shared/utils/dates'
 
 const FEED_PAST_DAYS = 60
 

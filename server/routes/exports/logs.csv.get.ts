@@ -1,7 +1,7 @@
 import Papa from 'papaparse'
-import { exportLogsQuerySchema } from '../../../shared/schemas/insights'
-import { addDays, daysBetween, startOfWeek, todayIn } from '../../../shared/utils/dates'
-import { RATIO_LOOKBACK_DAYS, weeklyLoads } from '../../../shared/utils/insights'
+import { exportLogsQuerySchema } from '#shared/schemas/insights'
+import { addDays, daysBetween, startOfWeek, todayIn } from '#shared/utils/dates'
+import { RATIO_LOOKBACK_DAYS, weeklyLoads } from '#shared/utils/insights'
 
 const MAX_RANGE_DAYS = 3 * 366
 

@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { planSession } from '../../../../shared/utils/session-plan'
+import { idParamsSchema } from '#shared/schemas/common'
+import { planSession } from '#shared/utils/session-plan'
 import { exercises, sessionLogs } from '../../../db/schema'
 
 /** The assigned athlete's own session plan: segments with their paces and loads, and the cautions. */

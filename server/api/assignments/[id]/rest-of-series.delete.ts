@@ -1,7 +1,7 @@
 import { and, eq, gte, notExists } from 'drizzle-orm'
 import { assignments, sessionLogs } from '../../../db/schema'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { restOfSeriesQuerySchema } from '../../../../shared/schemas/planner'
+import { idParamsSchema } from '#shared/schemas/common'
+import { restOfSeriesQuerySchema } from '#shared/schemas/planner'
 
 /**
  * Removes this assignment and the later ones of its series: for this athlete (`?who=athlete`, the default)

@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { startSessionSchema } from '../../../../shared/schemas/session'
-import { todayIn } from '../../../../shared/utils/dates'
+import { idParamsSchema } from '#shared/schemas/common'
+import { startSessionSchema } from '#shared/schemas/session'
+import { todayIn } from '#shared/utils/dates'
 import { sessionLogs } from '../../../db/schema'
 
 const EARLIEST_START_MS = 7 * 86_400_000

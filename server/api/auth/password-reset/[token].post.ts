@@ -1,5 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm'
-import { passwordResetSchema, tokenParamsSchema } from '../../../../shared/schemas/auth'
+import { passwordResetSchema, tokenParamsSchema } from '#shared/schemas/auth'
 import { passwordResets, users } from '../../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm'
-import { acceptInviteSchema, tokenParamsSchema } from '../../../../shared/schemas/auth'
+import { acceptInviteSchema, tokenParamsSchema } from '#shared/schemas/auth'
 import { athleteProfiles, invites, memberships, squadMembers, users } from '../../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { entrySchema } from '../../../../shared/schemas/session'
+import { idParamsSchema } from '#shared/schemas/common'
+import { entrySchema } from '#shared/schemas/session'
 import { assignments, entryLogs, exercises } from '../../../db/schema'
 
 /** Logs one set or interval. A repeated idempotency key answers 200 with the first result, unchanged. */

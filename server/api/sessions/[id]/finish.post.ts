@@ -1,7 +1,7 @@
 import { and, eq, isNotNull, isNull, ne } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { finishSessionSchema, MAX_SECONDS, PAIN_FLAG_THRESHOLD } from '../../../../shared/schemas/session'
-import { sessionLoad } from '../../../../shared/utils/load'
+import { idParamsSchema } from '#shared/schemas/common'
+import { finishSessionSchema, MAX_SECONDS, PAIN_FLAG_THRESHOLD } from '#shared/schemas/session'
+import { sessionLoad } from '#shared/utils/load'
 import { assignments, entryLogs, injuryNotes, painFlags, sessionLogs } from '../../../db/schema'
 
 /** Ends a session: effort, pain and note; stores the session load, flags pain, marks the assignment. */

@@ -1,7 +1,7 @@
 import { and, desc, eq } from 'drizzle-orm'
 import { assignments, assignmentSeries, routines } from '../../../../db/schema'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { seriesDates, todayIn } from '../../../../../shared/utils/dates'
+import { idParamsSchema } from '#shared/schemas/common'
+import { seriesDates, todayIn } from '#shared/utils/dates'
 
 /**
  * Gives athletes who joined the series' squad later (and have no assignment in it) the series'

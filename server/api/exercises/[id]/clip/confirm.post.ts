@@ -1,6 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { clipConfirmSchema } from '../../../../../shared/schemas/exercise'
+import { idParamsSchema } from '#shared/schemas/common'
+import { clipConfirmSchema } from '#shared/schemas/exercise'
 import { exercises, mediaObjects } from '../../../../db/schema'
 
 /**
