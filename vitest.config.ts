@@ -19,6 +19,7 @@ export default defineConfig({
         test: {
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
+          globalSetup: ['tests/setup/fresh-build.ts'],
           environment: 'node',
           testTimeout: 30_000,
           hookTimeout: 60_000,
@@ -30,6 +31,7 @@ export default defineConfig({
         test: {
           name: 'browser',
           include: ['tests/browser/**/*.test.ts'],
+          globalSetup: ['tests/setup/chromium.ts', 'tests/setup/fresh-build.ts'],
           environment: 'node',
           testTimeout: 120_000,
           hookTimeout: 90_000,
