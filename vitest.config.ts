@@ -1,4 +1,5 @@
 import { fileURLToPath } from 'node:url'
+import { defineVitestProject } from '@nuxt/test-utils/config'
 import { defineConfig } from 'vitest/config'
 
 const alias = {
@@ -14,6 +15,15 @@ export default defineConfig({
         resolve: { alias },
         test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
       },
+      // Components, composables and stores inside a real Nuxt app in happy-dom (no server, no browser).
+      await defineVitestProject({
+        test: {
+          name: 'nuxt',
+          include: ['tests/nuxt/**/*.test.ts'],
+          environment: 'nuxt',
+          environmentOptions: { nuxt: { domEnvironment: 'happy-dom' } },
+        },
+      }),
       {
         resolve: { alias },
         test: {
