@@ -1,5 +1,6 @@
-import { cp } from 'node:fs/promises'
+import { cp, writeFile } from 'node:fs/promises'
 import { resolve } from 'node:path'
+import { buildStampFile, sourceHash } from './scripts/source-hash'
 
 export default defineNuxtConfig({
   // Root-level layout: keep Nuxt from switching to an `app/` folder if one ever appears.
@@ -47,6 +48,10 @@ export default defineNuxtConfig({
       // The built server migrates its database at start, so it ships the migrations beside itself.
       async compiled(nitro) {
         await cp(resolve(nitro.options.rootDir, 'server/db/migrations'), resolve(nitro.options.output.serverDir, 'migrations'), { recursive: true })
+        // The tests compare this with the sources before they run the built server (tests/setup/fresh-build.ts).
+        if (!nitro.options.dev) {
+          await writeFile(resolve(nitro.options.rootDir, buildStampFile), JSON.stringify({ sourceHash: sourceHash(nitro.options.rootDir), builtAt: new Date().toISOString() }))
+        }
       },
     },
   },

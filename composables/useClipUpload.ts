@@ -1,12 +1,8 @@
 import { clipUploadRequestSchema, type ExerciseView, type MediaPurpose } from '#shared/schemas/exercise'
 import { fieldErrors } from '#shared/utils/errors'
 
-interface ServerError { data?: { message?: string, data?: { fields?: Record<string, string> } }, message?: string }
-
 function messageOf(error: unknown) {
-  const response = error as ServerError
-  const fields = response.data?.data?.fields ?? {}
-  return Object.values(fields)[0] ?? response.data?.message ?? response.message ?? 'The upload failed; try again'
+  return apiErrorMessage(error, 'The upload failed; try again')
 }
 
 /** PUT straight to the store with XMLHttpRequest, the one browser API that reports upload progress. */
@@ -73,7 +69,7 @@ export function useClipUpload(exerciseId: MaybeRefOrGetter<number>) {
     catch (caught) {
       phase.value = 'failed'
       if ((caught as Error).message !== 'Upload cancelled') failedUpload.value = { file, purpose }
-      error.value = caught instanceof Error && !(caught as ServerError).data ? caught.message : messageOf(caught)
+      error.value = caught instanceof Error && !(caught as { data?: unknown }).data ? caught.message : messageOf(caught)
       return null
     }
   }

@@ -15,7 +15,7 @@ export function useNav() {
   const { session, loggedIn } = useUserSession()
   const openPainFlags = useOpenPainFlagCount()
   const route = useRoute()
-  const isCoach = computed(() => session.value?.role === 'coach' || session.value?.role === 'head_coach')
+  const isCoach = computed(() => isCoachRole(session.value?.role))
   const links = computed<NavLink[]>(() => {
     if (!loggedIn.value) return []
     if (isCoach.value) {

@@ -23,14 +23,9 @@ export interface PlannerOptions {
   squads: { id: number, name: string }[]
 }
 
-interface FetchError { data?: { message?: string, data?: { fields?: Record<string, string> } }, message?: string }
-
 /** The message a coach should read for a failed planner call. */
 export function plannerErrorMessage(error: unknown) {
-  const response = error as FetchError
-  const fields = response.data?.data?.fields
-  if (fields && Object.keys(fields).length) return Object.values(fields)[0]!
-  return response.data?.message ?? response.message ?? 'Something went wrong; try again'
+  return apiErrorMessage(error)
 }
 
 /** The planner's changes to existing assignments, each answering with a message to show. */

@@ -91,9 +91,9 @@ export function usePlannerAssignForm(options: () => PlannerOptions, today: () =>
   }
 
   function showError(error: unknown) {
-    const response = error as { data?: { message?: string, data?: { fields?: Record<string, string> } } }
-    errors.value = response.data?.data?.fields ?? {}
-    formError.value = Object.keys(errors.value).length ? 'Check the marked fields.' : (response.data?.message ?? 'Could not plan that; try again')
+    const refused = readApiError(error, 'Could not plan that; try again')
+    errors.value = refused.fields
+    formError.value = Object.keys(errors.value).length ? 'Check the marked fields.' : refused.message
   }
 
   /** Sends the batch; resolves to a summary line for the page, or null when nothing was sent or it failed. */

@@ -1,7 +1,4 @@
-interface ServerError {
-  statusCode?: number
-  data?: { message?: string, data?: { fields?: Record<string, string>, currentVersion?: number } }
-}
+import type { ApiError } from '~/composables/useApiError'
 
 type Saved = { id: number, version: number }
 
@@ -54,27 +51,27 @@ export function useRoutineSave(options: { onInvalid: () => void, afterUpdate?: (
       say('success', 'Saved.')
     }
     catch (error) {
-      refused(error as ServerError)
+      refused(readApiError(error, 'Saving failed; check your connection and try again.'))
     }
     finally {
       saving.value = false
     }
   }
 
-  function refused(error: ServerError) {
+  function refused(error: ApiError) {
     messageTone.value = 'error'
-    if (error.statusCode === 409) {
-      conflict.value = { currentVersion: error.data?.data?.currentVersion }
+    if (error.status === 409) {
+      conflict.value = { currentVersion: error.data.currentVersion as number | undefined }
       return
     }
-    const fields = error.data?.data?.fields
-    if (error.statusCode === 400 && fields) {
+    const fields = error.fields
+    if (error.status === 400 && Object.keys(fields).length) {
       draft.applyServerErrors(fields)
       options.onInvalid()
       message.value = 'The server found problems in the highlighted fields.'
       return
     }
-    message.value = error.data?.message ?? 'Saving failed; check your connection and try again.'
+    message.value = error.message
   }
 
   async function reloadSaved() {
@@ -95,7 +92,7 @@ export function useRoutineSave(options: { onInvalid: () => void, afterUpdate?: (
       await navigateTo(`/routines/${created.id}`)
     }
     catch (error) {
-      refused(error as ServerError)
+      refused(readApiError(error, 'Saving failed; check your connection and try again.'))
     }
     finally {
       saving.value = false

@@ -1,12 +1,6 @@
 import type { z } from 'zod'
 import { fieldErrors } from '#shared/utils/errors'
 
-interface ServerError {
-  data?: { message?: string, data?: { fields?: Record<string, string> } }
-  statusCode?: number
-  message?: string
-}
-
 /**
  * Form state checked with the same zod schema the server uses: errors show once a field is touched
  * (or after a submit), and field messages from a 4xx answer land beside their fields.
@@ -56,11 +50,9 @@ export function useZodForm<S extends z.ZodObject>(schema: S, initial: z.input<S>
       await action(result.data)
     }
     catch (error) {
-      const response = error as ServerError
-      const fields = response.data?.data?.fields ?? {}
-      const { _: general, ...rest } = fields
-      serverErrors.value = rest
-      formError.value = general ?? (Object.keys(rest).length ? '' : (response.data?.message ?? response.message ?? 'Something went wrong; try again'))
+      const refused = readApiError(error)
+      serverErrors.value = refused.fields
+      formError.value = Object.keys(refused.fields).length ? (refused.data.fields?._ ?? '') : refused.message
     }
     finally {
       pending.value = false

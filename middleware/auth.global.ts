@@ -9,7 +9,7 @@ export default defineNuxtRouteMiddleware((to) => {
     if (isPublic || to.path === '/') return
     return navigateTo({ path: '/login', query: { next: to.fullPath } })
   }
-  const isCoach = session.value?.role === 'coach' || session.value?.role === 'head_coach'
+  const isCoach = isCoachRole(session.value?.role)
   if (to.path === '/login' || to.path === '/register' || to.path === '/') return navigateTo(isCoach ? '/coach' : '/today')
   if (to.meta.coachOnly && !isCoach) return navigateTo('/today')
 })

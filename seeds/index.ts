@@ -15,7 +15,7 @@ const steps: SeedStep[] = [seedExercises, seedRoutines, seedInsights, seedPlan, 
 
 async function main() {
   const url = process.env.DATABASE_URL ?? 'file:.data/switchback.db'
-  const db = await openDatabase(url)
+  const db = await openDatabase(url, process.env.DATABASE_AUTH_TOKEN)
   await migrateDatabase(db)
   const log = (line: string) => console.log(`  seeded ${line}`)
   const context = await seedClub(db, log)

@@ -1,7 +1,7 @@
 import { and, eq, sql } from 'drizzle-orm'
 import { assignments, entryLogs, exercises, painFlags, routines, sessionLogs } from '../server/db/schema'
 import type { AssignmentSnapshot } from '../shared/types/domain'
-import type { RoutineStep } from '../shared/utils/timeline'
+import type { RoutineStep } from '../shared/schemas/routine-steps'
 import { addDays, todayIn } from '../shared/utils/dates'
 import type { SeedStep } from './context'
 

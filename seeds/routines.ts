@@ -1,6 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import { exercises, routineExercises, routines } from '../server/db/schema'
-import { routineStepsSchema, type RoutineStep } from '../shared/utils/timeline'
+import { routineStepsSchema, type RoutineStep } from '../shared/schemas/routine-steps'
 import { routineExerciseIds } from '../server/utils/routines'
 import type { SeedStep } from './context'
 import { starterTemplates as templates } from '../server/starter/routines'

@@ -31,13 +31,12 @@ const STORAGE_KEY = 'switchback.outbox.v1'
 const RETRY_MS = 15_000
 
 function isNetworkFailure(error: unknown) {
-  const status = (error as { statusCode?: number, response?: { status?: number } }).statusCode ?? (error as { response?: { status?: number } }).response?.status
+  const { status } = readApiError(error)
   return !status || status >= 500 || status === 408 || status === 429
 }
 
 function messageOf(error: unknown) {
-  const data = (error as { data?: { message?: string } }).data
-  return data?.message ?? (error as Error).message ?? 'Could not save'
+  return readApiError(error, (error as Error)?.message || 'Could not save').message
 }
 
 export const useSessionOutboxStore = defineStore('sessionOutbox', () => {

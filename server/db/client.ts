@@ -13,8 +13,11 @@ export const BUSY_TIMEOUT_MS = 5000
 
 export const defaultDatabaseUrl = 'file:.data/switchback.db'
 
-/** Opens a database by URL. Plain Node (no Nuxt), so scripts, seeds and benchmarks share it. */
-export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> {
+/**
+ * Opens a database by URL. Plain Node (no Nuxt), so scripts, seeds and benchmarks share it; the server
+ * passes its config (server/utils/db.ts), scripts pass their own environment.
+ */
+export async function openDatabase(url = defaultDatabaseUrl, authToken?: string): Promise<Database> {
   if (url.startsWith('file:')) {
     // libSQL does not create folders for a file database.
     const file = url.slice('file:'.length)
@@ -23,7 +26,7 @@ export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> 
   // The client keeps a pool of connections (a transaction holds its own), and a PRAGMA reaches only the
   // connection that ran it: the busy timeout goes in the options so that every connection waits for a
   // lock instead of failing at once. WAL is a property of the file, so setting it once is enough.
-  const connect = () => createClient({ url, authToken: process.env.DATABASE_AUTH_TOKEN, timeout: BUSY_TIMEOUT_MS })
+  const connect = () => createClient({ url, authToken, timeout: BUSY_TIMEOUT_MS })
   const client = url.startsWith('file:') ? recyclingClient(connect) : connect()
   if (url.startsWith('file:')) {
     await client.execute('PRAGMA journal_mode = WAL')
@@ -33,9 +36,9 @@ export async function openDatabase(url = defaultDatabaseUrl): Promise<Database> 
 }
 
 /** The source folder in development and tests; the built server's own copy in production. */
-export function findMigrationsFolder(): string {
+export function findMigrationsFolder(configured?: string): string {
   const candidates = [
-    process.env.MIGRATIONS_DIR,
+    configured,
     resolve(process.cwd(), 'server/db/migrations'),
     process.argv[1] ? resolve(dirname(process.argv[1]), 'migrations') : undefined,
   ].filter((path): path is string => Boolean(path))

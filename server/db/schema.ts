@@ -1,9 +1,12 @@
-import { relations, sql } from 'drizzle-orm'
+import { sql } from 'drizzle-orm'
 import { foreignKey, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core'
-import type { RoutineStep } from '../../shared/utils/timeline'
-import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
+import type { AssignmentSnapshot, ExerciseCaution } from '#shared/types/domain'
+import type { FieldOverride, LighterWeeks, ProgressionRule, Taper } from '#shared/utils/progression'
+// The schema is also loaded by plain Node (drizzle-kit, scripts, seeds), which does not know the
+// `#shared` alias: its one value import climbs to the vocabulary by path.
+// eslint-disable-next-line no-restricted-imports
 import { assignmentStatuses, exerciseCategories, injuryStatuses, invitableRoles, painFlagReasons, painFlagStatuses, roles, routineCategories } from '../../shared/utils/vocabulary'
-import type { FieldOverride, LighterWeeks, ProgressionRule, Taper } from '../../shared/utils/progression'
 
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
@@ -534,52 +537,3 @@ export const jobLeases = sqliteTable('job_leases', {
   runs: integer('runs').notNull().default(0),
   lastRunAt: integer('last_run_at', { mode: 'timestamp_ms' }),
 })
-
-export const teamsRelations = relations(teams, ({ many }) => ({
-  memberships: many(memberships),
-  squads: many(squads),
-}))
-
-export const usersRelations = relations(users, ({ many, one }) => ({
-  memberships: many(memberships),
-  profile: one(athleteProfiles, { fields: [users.id], references: [athleteProfiles.userId] }),
-  injuryNotes: many(injuryNotes),
-}))
-
-export const membershipsRelations = relations(memberships, ({ one }) => ({
-  team: one(teams, { fields: [memberships.teamId], references: [teams.id] }),
-  user: one(users, { fields: [memberships.userId], references: [users.id] }),
-}))
-
-export const squadsRelations = relations(squads, ({ one, many }) => ({
-  team: one(teams, { fields: [squads.teamId], references: [teams.id] }),
-  members: many(squadMembers),
-}))
-
-export const squadMembersRelations = relations(squadMembers, ({ one }) => ({
-  squad: one(squads, { fields: [squadMembers.squadId], references: [squads.id] }),
-  user: one(users, { fields: [squadMembers.userId], references: [users.id] }),
-}))
-
-export const injuryNotesRelations = relations(injuryNotes, ({ one }) => ({
-  athlete: one(users, { fields: [injuryNotes.athleteId], references: [users.id] }),
-}))
-
-export const exercisesRelations = relations(exercises, ({ one }) => ({
-  clip: one(mediaObjects, { fields: [exercises.clipId], references: [mediaObjects.id] }),
-}))
-
-export const assignmentsRelations = relations(assignments, ({ one, many }) => ({
-  athlete: one(users, { fields: [assignments.athleteId], references: [users.id] }),
-  routine: one(routines, { fields: [assignments.routineId], references: [routines.id] }),
-  sessions: many(sessionLogs),
-}))
-
-export const sessionLogsRelations = relations(sessionLogs, ({ one, many }) => ({
-  assignment: one(assignments, { fields: [sessionLogs.assignmentId], references: [assignments.id] }),
-  entries: many(entryLogs),
-}))
-
-export const entryLogsRelations = relations(entryLogs, ({ one }) => ({
-  session: one(sessionLogs, { fields: [entryLogs.sessionId], references: [sessionLogs.id] }),
-}))

@@ -6,8 +6,8 @@ const MAX_BODY_BYTES = 1_000_000
 const payloadMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 const tooLarge = 'The request body is larger than 1 MB'
 
-function refuse(): never {
-  throw createError({ statusCode: 413, statusMessage: 'Payload too large', message: tooLarge, data: { fields: { _: tooLarge } } })
+function tooLargeBody(): never {
+  refuseField('_', tooLarge, 413)
 }
 
 /** Reads the whole body with a running count, so a chunked upload is cut off at the cap. */
@@ -37,7 +37,7 @@ function readCapped(event: H3Event): Promise<Buffer> {
 export default defineEventHandler(async (event) => {
   if (!event.path.startsWith('/api/')) return
   const length = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (length > MAX_BODY_BYTES) refuse()
+  if (length > MAX_BODY_BYTES) tooLargeBody()
   const chunked = /\bchunked\b/i.test(getRequestHeader(event, 'transfer-encoding') ?? '')
   if (!chunked || !payloadMethods.has(event.method)) return
   try {
@@ -45,6 +45,6 @@ export default defineEventHandler(async (event) => {
     event._requestBody = new Uint8Array(await readCapped(event))
   }
   catch {
-    refuse()
+    tooLargeBody()
   }
 })

@@ -6,7 +6,7 @@
 const writes = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 
 function refuse(message: string): never {
-  throw createError({ statusCode: 403, statusMessage: 'Forbidden', message, data: { fields: { _: message } } })
+  refuseField('_', message, 403)
 }
 
 export default defineEventHandler((event) => {

@@ -1,9 +1,8 @@
 // Fail fast in production rather than run with sessions that anyone could forge.
 export default defineNitroPlugin(() => {
-  const password = process.env.NUXT_SESSION_PASSWORD ?? ''
-  if (process.env.NODE_ENV === 'production' && password.length < 32) {
+  const config = useServerConfig()
+  if (config.production && config.sessionPassword.length < 32) {
     console.error('NUXT_SESSION_PASSWORD must be set to a secret of at least 32 characters in production.')
     process.exit(1)
   }
-  useServerConfig()
 })

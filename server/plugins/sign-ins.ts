@@ -10,7 +10,7 @@ export default defineNitroPlugin(() => {
     const sid = session.secure?.sid
     if (typeof sid !== 'string' || !(await signInIsLive(sid, session.user.id))) {
       await clearUserSession(event)
-      throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Your session has ended; sign in again' })
+      refuse(401, 'Your session has ended; sign in again')
     }
   })
 })

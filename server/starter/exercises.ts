@@ -1,4 +1,4 @@
-import type { ExerciseInput } from '../../shared/schemas/exercise'
+import type { ExerciseInput } from '#shared/schemas/exercise'
 
 /** How a generated demo clip looks: `seeds/clip.ts` draws it; `scripts/starter-clips.ts` writes the files. */
 export interface StarterClipStyle {

@@ -1,4 +1,4 @@
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
 
 // Starting points a coach copies and adapts, in our own words. Exercises are found by name in the
 // team's library at run time; a template whose exercises are not there yet is left for a later run.

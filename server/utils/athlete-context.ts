@@ -1,8 +1,8 @@
 import { and, eq, isNotNull } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { athleteProfiles, entryLogs, injuryNotes, users } from '../db/schema'
-import { trainingPacesOrNull, type TrainingPaces } from '../../shared/utils/pace'
-import { e1rmEpley } from '../../shared/utils/strength'
+import { trainingPacesOrNull, type TrainingPaces } from '#shared/utils/pace'
+import { e1rmEpley } from '#shared/utils/strength'
 
 export interface AthleteContext {
   athlete: { id: number, name: string, timezone: string }

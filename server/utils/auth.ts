@@ -1,9 +1,7 @@
 import type { H3Event } from 'h3'
 import { and, eq, gt } from 'drizzle-orm'
-import type { Role } from '../../shared/utils/vocabulary'
+import type { Role } from '#shared/utils/vocabulary'
 import { authSessions, memberships, teams, users } from '../db/schema'
-
-const rank: Record<Role, number> = { athlete: 0, coach: 1, head_coach: 2 }
 
 export interface Caller {
   userId: number
@@ -15,10 +13,6 @@ export interface Caller {
   teamName: string
 }
 
-export function isCoachRole(role: Role) {
-  return rank[role] >= rank.coach
-}
-
 /**
  * Who is calling, with their role in the team their session is for.
  * 401 when signed out (or the membership is gone), 403 when the role is below `minimum`.
@@ -27,7 +21,7 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
   const session = await getUserSession(event)
   const sid = session.secure?.sid
   if (!session.user || !session.teamId || typeof sid !== 'string') {
-    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Sign in first' })
+    refuse(401, 'Sign in first')
   }
   const db = await useDb()
   // One lookup: the live sign-in row, the membership it is for, the person and the team.
@@ -50,11 +44,10 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
     .limit(1)
   if (!row) {
     await clearUserSession(event)
-    throw createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'Your session has ended; sign in again' })
+    refuse(401, 'Your session has ended; sign in again')
   }
-  if (rank[row.role] < rank[minimum]) {
-    const message = minimum === 'head_coach' ? 'Only the head coach can do this' : minimum === 'coach' ? 'Only coaches can do this' : 'Not allowed'
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message })
+  if (!hasRole(row.role, minimum)) {
+    refuse(403, minimum === 'head_coach' ? 'Only the head coach can do this' : minimum === 'coach' ? 'Only coaches can do this' : 'Not allowed')
   }
   event.context.caller = { userId: session.user.id, teamId: session.teamId, ...row }
   return event.context.caller as Caller
@@ -84,4 +77,13 @@ export async function signIn(event: H3Event, user: { id: number, name: string, e
 /** Signs the caller out here and ends that session on the server. */
 export async function signOut(event: H3Event) {
   await clearUserSession(event)
+}
+
+/** The guard of every athlete-only route (`/api/me/*`, sessions, entries): coaches get a 403. */
+export async function requireAthlete(event: H3Event) {
+  const caller = await requireTeamRole(event, 'athlete')
+  if (caller.role !== 'athlete') {
+    refuse(403, 'This is for athletes; coaches open an athlete from the team page')
+  }
+  return caller
 }

@@ -1,15 +1,15 @@
 import { and, asc, eq, gte, inArray, notExists } from 'drizzle-orm'
-import { createError } from 'h3'
 import type { Database } from '../db/client'
 import { assignments, blockRoutines, blocks, blockTargets, blockWeekOverrides, memberships, sessionLogs, squadMembers, teams, users } from '../db/schema'
 import { snapshotRoutine } from './snapshot'
-import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { addDays, weekdayOf } from '../../shared/utils/dates'
+import { notFound } from './validation'
+import type { AssignmentSnapshot } from '#shared/types/domain'
+import { addDays, weekdayOf } from '#shared/utils/dates'
 import {
   describeChanges, keyNumbers, planWeek, volumeFactor, weekKind, weekOfBlock,
   type BlockShape, type FieldOverride, type KeyNumbers, type WeekKind,
-} from '../../shared/utils/progression'
-import type { RoutineStep } from '../../shared/utils/timeline'
+} from '#shared/utils/progression'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
 
 // Training blocks: loading one, working out every week's sessions, writing them. Explicit imports
 // (no Nitro auto-imports) so the demo seed can plan a block with the same code.
@@ -28,11 +28,7 @@ export interface LoadedBlock {
 }
 
 export function blockNotFound(): never {
-  throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such block' })
-}
-
-export function badField(field: string, message: string): never {
-  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${field}: ${message}`, data: { fields: { [field]: message } } })
+  notFound('No such block')
 }
 
 /** The block with its routine slots, people and hand-set weeks; 404 for another team's block. */

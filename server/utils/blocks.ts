@@ -1,14 +1,14 @@
 import { and, count, eq, gte, inArray, notExists } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, blockRoutines, blocks, blockTargets, blockWeekOverrides, routines, sessionLogs, squads } from '../db/schema'
-import type { BlockInput } from '../../shared/schemas/block'
+import type { BlockInput } from '#shared/schemas/block'
 import { MAX_BATCH_ASSIGNMENTS } from './planner'
 import {
-  badField, blockAthletes, computeBlockWeeks, firstFutureWeek, loadBlock, overridesOf, slotRoutines, slotsOf,
+  blockAthletes, computeBlockWeeks, firstFutureWeek, loadBlock, overridesOf, slotRoutines, slotsOf,
   teamPlateKg, weekSnapshot, type LoadedBlock, type SlotInput,
 } from './block-plan'
-import { addDays, todayIn } from '../../shared/utils/dates'
-import { ruleProblem } from '../../shared/utils/progression'
+import { addDays, todayIn } from '#shared/utils/dates'
+import { ruleProblem } from '#shared/utils/progression'
 
 /**
  * Checks a block's input against the team: squads (404 when not the team's), athletes (400),
@@ -28,14 +28,14 @@ export async function checkBlockInput(db: Database, teamId: number, input: Block
     const routine = routinesById.get(slot.routineId)!
     slot.rules.forEach((rule, ruleIndex) => {
       const problem = ruleProblem(routine.steps, rule, input.weeks)
-      if (problem) badField(`routines.${index}.rules.${ruleIndex}.${problem.startsWith('This step') ? 'stepId' : rule.cap !== undefined && problem.startsWith('The cap') ? 'cap' : 'by'}`, problem)
+      if (problem) refuseField(`routines.${index}.rules.${ruleIndex}.${problem.startsWith('This step') ? 'stepId' : rule.cap !== undefined && problem.startsWith('The cap') ? 'cap' : 'by'}`, problem)
     })
   })
   if (blockId !== undefined) {
     const own = await db.select({ id: blockRoutines.id }).from(blockRoutines).where(eq(blockRoutines.blockId, blockId))
     const ownIds = new Set(own.map(row => row.id))
     input.routines.forEach((slot, index) => {
-      if (slot.id !== undefined && !ownIds.has(slot.id)) badField(`routines.${index}.id`, 'This routine slot is not part of the block')
+      if (slot.id !== undefined && !ownIds.has(slot.id)) refuseField(`routines.${index}.id`, 'This routine slot is not part of the block')
     })
   }
   return routinesById
@@ -127,7 +127,7 @@ async function slotRoutinesLenient(db: Database, teamId: number, ids: number[]) 
 
 export function assertPlanSize(athletes: number, sessionsPerAthlete: number) {
   if (athletes * sessionsPerAthlete > MAX_BATCH_ASSIGNMENTS) {
-    badField('routines', `That makes ${athletes * sessionsPerAthlete} sessions; a block plans at most ${MAX_BATCH_ASSIGNMENTS} at once`)
+    refuseField('routines', `That makes ${athletes * sessionsPerAthlete} sessions; a block plans at most ${MAX_BATCH_ASSIGNMENTS} at once`)
   }
 }
 

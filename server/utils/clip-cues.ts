@@ -1,7 +1,7 @@
 import { and, asc, count, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { clipCues } from '../db/schema'
-import { cueTimeProblems, type ClipCueView } from '../../shared/schemas/clip-cue'
+import { cueTimeProblems, type ClipCueView } from '#shared/schemas/clip-cue'
 
 type CueRow = typeof clipCues.$inferSelect
 
@@ -24,10 +24,7 @@ export async function countClipCues(db: Pick<Database, 'select'>, teamId: number
 /** 400 naming the field when a cue's times do not fit the clip. */
 export function assertCueFits(cue: { startSeconds: number, endSeconds: number | null }, durationSeconds: number | null) {
   const fields = cueTimeProblems(cue, durationSeconds)
-  const first = Object.entries(fields)[0]
-  if (first) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${first[0]}: ${first[1]}`, data: { fields } })
-  }
+  if (Object.keys(fields).length) refuseFields(fields)
 }
 
 /** The team's exercise with a clip, for cue changes: 404 without one, since cues are pinned to a clip. */

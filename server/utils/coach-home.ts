@@ -1,8 +1,8 @@
 import { and, asc, count, eq, gt, gte, isNull, lte, sql } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, exercises, invites, memberships, routines, sessionLogs, squads, teams } from '../db/schema'
-import { addDays, todayIn } from '../../shared/utils/dates'
-import { ratioBand } from '../../shared/utils/insights'
+import { addDays, todayIn } from '#shared/utils/dates'
+import { ratioBand } from '#shared/utils/insights'
 
 export interface HomeAthleteDay {
   athleteId: number

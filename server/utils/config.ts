@@ -12,17 +12,26 @@ const configSchema = z.object({
   s3AccessKeyId: z.string().default('S3RVER'),
   s3SecretAccessKey: z.string().default('S3RVER'),
   outboxIntervalMs: z.coerce.number().int().positive().default(2000),
+  outboxBackoffMs: z.coerce.number().int().positive().default(5000),
   mediaSweepIntervalMs: z.coerce.number().int().positive().default(10 * 60_000),
   healthCheckIntervalMs: z.coerce.number().int().positive().default(10_000),
   // How long a notice of moved or removed sessions waits for more changes before it is sent.
   planNoticeDelayMs: z.coerce.number().int().min(0).default(600_000),
+  databaseAuthToken: z.string().optional(),
+  migrationsDir: z.string().optional(),
+  trustProxy: z.enum(['true', 'false']).default('false').transform(value => value === 'true'),
+  sessionPassword: z.string().default(''),
+  production: z.boolean(),
 })
 
 export type AppConfig = z.infer<typeof configSchema>
 
 let cached: AppConfig | undefined
 
-/** Configuration read from the environment at run time (never baked into the build). */
+/**
+ * The one place the server reads its environment, at run time (never baked into the build).
+ * Handlers, plugins and utils ask `useServerConfig()`; every variable is in the README's table.
+ */
 export function useServerConfig(): AppConfig {
   cached ??= configSchema.parse({
     databaseUrl: process.env.DATABASE_URL || undefined,
@@ -36,9 +45,15 @@ export function useServerConfig(): AppConfig {
     s3AccessKeyId: process.env.S3_ACCESS_KEY_ID || undefined,
     s3SecretAccessKey: process.env.S3_SECRET_ACCESS_KEY || undefined,
     outboxIntervalMs: process.env.OUTBOX_INTERVAL_MS || undefined,
+    outboxBackoffMs: process.env.OUTBOX_BACKOFF_MS || undefined,
     mediaSweepIntervalMs: process.env.MEDIA_SWEEP_INTERVAL_MS || undefined,
     healthCheckIntervalMs: process.env.HEALTH_CHECK_INTERVAL_MS || undefined,
     planNoticeDelayMs: process.env.PLAN_NOTICE_DELAY_MS || undefined,
+    databaseAuthToken: process.env.DATABASE_AUTH_TOKEN || undefined,
+    migrationsDir: process.env.MIGRATIONS_DIR || undefined,
+    trustProxy: process.env.TRUST_PROXY || undefined,
+    sessionPassword: process.env.NUXT_SESSION_PASSWORD || undefined,
+    production: process.env.NODE_ENV === 'production',
   })
   return cached
 }

@@ -1,6 +1,6 @@
 // Plain-text and simple HTML bodies for every message the app sends, in our own words.
-import { formatDay, isCalendarDay } from '../../shared/utils/dates'
-import { bodyAreaLabel, painFlagReasonLabels, plural, type PainFlagReason } from '../../shared/utils/vocabulary'
+import { formatDay, isCalendarDay } from '#shared/utils/dates'
+import { bodyAreaLabel, painFlagReasonLabels, plural, type PainFlagReason } from '#shared/utils/vocabulary'
 
 export interface RenderedEmail {
   subject: string

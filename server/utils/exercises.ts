@@ -1,7 +1,7 @@
 import { and, eq, ne, sql } from 'drizzle-orm'
 import type { Database } from '../db/client'
-import { exercises, mediaObjects } from '../db/schema'
-import type { ExerciseView } from '../../shared/schemas/exercise'
+import { assignments, exercises, mediaObjects } from '../db/schema'
+import type { ExerciseView } from '#shared/schemas/exercise'
 import type { Caller } from './auth'
 
 type ExerciseRow = typeof exercises.$inferSelect
@@ -29,24 +29,29 @@ export function exerciseView(row: ExerciseRow, clip?: Pick<MediaRow, 'contentTyp
 
 /** The ids of every exercise in any of the athlete's assignment snapshots (listed or named by a step). */
 export async function athleteExerciseIds(db: Database, teamId: number, athleteId: number): Promise<number[]> {
+  // Snapshots are JSON in one column: SQLite's json_each/json_tree read the lists and steps in place.
+  const own = and(eq(assignments.teamId, teamId), eq(assignments.athleteId, athleteId))
   const rows = await db.all<{ id: number }>(sql`
-    SELECT CAST(json_extract(e.value, '$.id') AS INTEGER) AS id
-      FROM assignments a, json_each(a.snapshot, '$.exercises') e
-     WHERE a.team_id = ${teamId} AND a.athlete_id = ${athleteId}
+    SELECT CAST(json_extract(listed.value, '$.id') AS INTEGER) AS id
+      FROM ${assignments}, json_each(${assignments.snapshot}, '$.exercises') AS listed
+     WHERE ${own}
     UNION
-    SELECT CAST(t.value AS INTEGER) AS id
-      FROM assignments a, json_tree(a.snapshot, '$.steps') t
-     WHERE a.team_id = ${teamId} AND a.athlete_id = ${athleteId} AND t.key = 'exerciseId'`)
+    SELECT CAST(step.value AS INTEGER) AS id
+      FROM ${assignments}, json_tree(${assignments.snapshot}, '$.steps') AS step
+     WHERE ${own} AND step.key = 'exerciseId'`)
   return rows.map(row => Number(row.id)).filter(id => Number.isInteger(id) && id > 0)
 }
 
+/** Whether an assignment's snapshot lists the exercise or names it in a step. */
+export function snapshotUsesExercise(exerciseId: number) {
+  return sql`(EXISTS (SELECT 1 FROM json_each(${assignments.snapshot}, '$.exercises') AS listed WHERE json_extract(listed.value, '$.id') = ${exerciseId})
+    OR EXISTS (SELECT 1 FROM json_tree(${assignments.snapshot}, '$.steps') AS step WHERE step.key = 'exerciseId' AND step.value = ${exerciseId}))`
+}
+
 async function athleteMaySee(db: Database, caller: Caller, exerciseId: number) {
-  const [row] = await db.all<{ found: number }>(sql`
-    SELECT 1 AS found FROM assignments a
-     WHERE a.team_id = ${caller.teamId} AND a.athlete_id = ${caller.userId}
-       AND (EXISTS (SELECT 1 FROM json_each(a.snapshot, '$.exercises') e WHERE json_extract(e.value, '$.id') = ${exerciseId})
-         OR EXISTS (SELECT 1 FROM json_tree(a.snapshot, '$.steps') t WHERE t.key = 'exerciseId' AND t.value = ${exerciseId}))
-     LIMIT 1`)
+  const [row] = await db.select({ id: assignments.id }).from(assignments)
+    .where(and(eq(assignments.teamId, caller.teamId), eq(assignments.athleteId, caller.userId), snapshotUsesExercise(exerciseId)))
+    .limit(1)
   return Boolean(row)
 }
 
@@ -75,11 +80,6 @@ export async function assertExerciseNameFree(db: Database, teamId: number, name:
     ))
     .limit(1)
   if (clash) {
-    throw createError({
-      statusCode: 409,
-      statusMessage: 'Name taken',
-      message: 'name: Your library already has an exercise with this name',
-      data: { fields: { name: 'Your library already has an exercise with this name' } },
-    })
+    refuseField('name', 'Your library already has an exercise with this name', 409)
   }
 }

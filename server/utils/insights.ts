@@ -1,13 +1,14 @@
-import type { PainFlagReason } from '../../shared/utils/vocabulary'
+import type { PainFlagReason } from '#shared/utils/vocabulary'
 import { and, asc, between, desc, eq, gte, inArray, isNotNull, lte, sql } from 'drizzle-orm'
+import type { SQLiteColumn } from 'drizzle-orm/sqlite-core'
 import type { Database } from '../db/client'
 import { assignments, entryLogs, exercises, memberships, painFlags, sessionLogs, squadMembers, squads, users } from '../db/schema'
 import {
   compliance, RATIO_LOOKBACK_DAYS, ratiosOn, roundKg, roundLoad, roundVolume, weeklyLoads,
   type Compliance, type DailyLoad,
-} from '../../shared/utils/insights'
-import { addDays, daysBetween, startOfWeek, todayIn } from '../../shared/utils/dates'
-import { e1rmEpley, volumeLoad } from '../../shared/utils/strength'
+} from '#shared/utils/insights'
+import { addDays, daysBetween, startOfWeek, todayIn } from '#shared/utils/dates'
+import { e1rmEpley, volumeLoad } from '#shared/utils/strength'
 
 // An assignment counts as done when the athlete finished a session for it, or marked it done or partly done.
 // Written with qualified names: drizzle leaves columns unqualified in single-table selects, which would
@@ -74,10 +75,10 @@ async function listAthletesByIds(db: Database, teamId: number, ids: number[]) {
     .where(and(eq(memberships.teamId, teamId), eq(memberships.role, 'athlete'), inArray(users.id, ids)))
 }
 
-function athleteFilter(column: string, athleteIds?: number[]) {
+function athleteFilter(column: SQLiteColumn, athleteIds?: number[]) {
   if (!athleteIds) return sql``
   if (!athleteIds.length) return sql` and 0`
-  return sql` and ${sql.raw(column)} in (${sql.join(athleteIds.map(id => sql`${id}`), sql`, `)})`
+  return sql` and ${inArray(column, athleteIds)}`
 }
 
 // Grouped rows come back as one packed text per athlete ("day value value,…"): the GROUP BY work stays in
@@ -91,10 +92,10 @@ export async function dailyLoadsByAthlete(db: Database, teamId: number, from: st
   const rows = await db.all<{ athleteId: number, packed: string | null }>(sql`
     select athlete_id as athleteId, group_concat(day || ' ' || total || ' ' || sessions, ',') as packed
     from (
-      select athlete_id, day, coalesce(sum(max(coalesce(load, 0), 0)), 0) as total, count(*) as sessions
-      from session_logs
-      where team_id = ${teamId} and day between ${from} and ${to}${athleteFilter('athlete_id', athleteIds)}
-      group by athlete_id, day
+      select ${sessionLogs.athleteId} as athlete_id, ${sessionLogs.day} as day, coalesce(sum(max(coalesce(${sessionLogs.load}, 0), 0)), 0) as total, count(*) as sessions
+      from ${sessionLogs}
+      where ${sessionLogs.teamId} = ${teamId} and ${sessionLogs.day} between ${from} and ${to}${athleteFilter(sessionLogs.athleteId, athleteIds)}
+      group by ${sessionLogs.athleteId}, ${sessionLogs.day}
     )
     group by athlete_id`)
   const byAthlete = new Map<number, (DailyLoad & { sessions: number })[]>()
@@ -109,10 +110,10 @@ export async function assignedCountsByAthlete(db: Database, teamId: number, from
   const rows = await db.all<{ athleteId: number, packed: string | null }>(sql`
     select athlete_id as athleteId, group_concat(date || ' ' || assigned || ' ' || done, ',') as packed
     from (
-      select athlete_id, date, count(*) as assigned, sum(${doneExpression}) as done
-      from assignments
-      where team_id = ${teamId} and date between ${from} and ${to}${athleteFilter('athlete_id', athleteIds)}
-      group by athlete_id, date
+      select ${assignments.athleteId} as athlete_id, ${assignments.date} as date, count(*) as assigned, sum(${doneExpression}) as done
+      from ${assignments}
+      where ${assignments.teamId} = ${teamId} and ${assignments.date} between ${from} and ${to}${athleteFilter(assignments.athleteId, athleteIds)}
+      group by ${assignments.athleteId}, ${assignments.date}
     )
     group by athlete_id`)
   const byAthlete = new Map<number, AssignedCount[]>()

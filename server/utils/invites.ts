@@ -16,7 +16,7 @@ export async function findUsableInvite(db: Database, token: string) {
     .where(eq(invites.tokenHash, hashToken(token))).limit(1)
   if (!row) notFound('This invitation link is not valid')
   if (row.invite.acceptedAt || row.invite.revokedAt || row.invite.expiresAt.getTime() < Date.now()) {
-    throw createError({ statusCode: 410, statusMessage: 'Gone', message: row.invite.acceptedAt ? 'This invitation has already been used' : 'This invitation has expired or was withdrawn; ask your coach for a new one' })
+    refuse(410, row.invite.acceptedAt ? 'This invitation has already been used' : 'This invitation has expired or was withdrawn; ask your coach for a new one')
   }
   return row
 }
@@ -38,6 +38,6 @@ export async function sendInvite(db: Pick<Database, 'insert' | 'update'>, invite
 /** Coaches invite athletes; inviting (or re-sending, withdrawing) a coach's invitation is the head coach's. */
 export function assertMayInvite(caller: { role: string }, role: string) {
   if (role !== 'athlete' && caller.role !== 'head_coach') {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: 'Only the head coach can invite coaches' })
+    refuse(403, 'Only the head coach can invite coaches')
   }
 }

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, gte, inArray, lte } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, entryLogs, sessionLogs } from '../db/schema'
-import { stepNamesById } from '../../shared/utils/routine-text'
+import { stepNamesById } from '#shared/utils/routine-text'
 
 /** One athlete's sessions with their entries, newest first, optionally between two days. */
 export async function loadLogbook(db: Database, teamId: number, athleteId: number, range: { from?: string, to?: string }, limit = 200) {

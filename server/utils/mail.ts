@@ -37,7 +37,7 @@ export function useTransport() {
 }
 
 function backoffMs(attempts: number) {
-  const base = Number(process.env.OUTBOX_BACKOFF_MS) || 5000
+  const base = useServerConfig().outboxBackoffMs
   return Math.min(base * 2 ** (attempts - 1), 3_600_000)
 }
 

@@ -1,7 +1,7 @@
 import { and, eq, sql } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { emailOutbox } from '../db/schema'
-import { todayIn } from '../../shared/utils/dates'
+import { todayIn } from '#shared/utils/dates'
 import type { PlannedAthlete } from './planner'
 
 export interface PlanChange {

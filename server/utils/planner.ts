@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, memberships, squadMembers, squads, users } from '../db/schema'
-import type { AssignmentSnapshot } from '../../shared/types/domain'
+import type { AssignmentSnapshot } from '#shared/types/domain'
 
 /** A transaction or the database: anything that can read and write. */
 export type Writer = Pick<Database, 'insert' | 'select' | 'update' | 'delete'>
@@ -16,10 +16,6 @@ export interface PlannedAthlete {
   email: string
   notifyByEmail: boolean
   timezone: string
-}
-
-export function tooMany(field: string, message: string): never {
-  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${field}: ${message}`, data: { fields: { [field]: message } } })
 }
 
 /** The athletes of the team currently in a squad (coaches who sit in a squad are not assigned work). */

@@ -1,11 +1,10 @@
-import type { H3Event } from 'h3'
 import { and, asc, desc, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { athleteProfiles, injuryNotes } from '../db/schema'
-import type { ProfilePatch } from '../../shared/schemas/profile'
-import { isUnder18 } from '../../shared/utils/age'
-import { hrMaxTanaka } from '../../shared/utils/heart'
-import { benchmarkProblem, trainingPaces, type TrainingPaces } from '../../shared/utils/pace'
+import type { ProfilePatch } from '#shared/schemas/profile'
+import { isUnder18 } from '#shared/utils/age'
+import { hrMaxTanaka } from '#shared/utils/heart'
+import { benchmarkProblem, trainingPaces, type TrainingPaces } from '#shared/utils/pace'
 
 /** The profile page's data: stored values, injury notes, and what the app derives from them. */
 export async function loadProfileView(db: Database, teamId: number, athlete: { id: number, name: string }) {
@@ -64,7 +63,7 @@ export async function saveProfile(db: Database, teamId: number, athleteId: numbe
     const timeS = patch.benchmarkTimeS !== undefined ? patch.benchmarkTimeS : stored?.timeS ?? null
     const problem = distanceM && timeS ? benchmarkProblem({ distanceM, timeS }) : null
     if (problem) {
-      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `benchmarkTimeS: ${problem}`, data: { fields: { benchmarkTimeS: problem, _: problem } } })
+      refuseFields({ benchmarkTimeS: problem, _: problem })
     }
   }
   await db.insert(athleteProfiles).values({ userId: athleteId, teamId, ...patch })
@@ -74,13 +73,4 @@ export async function saveProfile(db: Database, teamId: number, athleteId: numbe
 export async function addInjuryNote(db: Database, teamId: number, athleteId: number, values: { bodyArea: string, note: string, since?: string | null, status: 'active' | 'resolved' }) {
   const [note] = await db.insert(injuryNotes).values({ teamId, athleteId, ...values }).returning()
   return note!
-}
-
-/** Profiles and logs belong to athletes: coaches get a 403 on the athlete's own routes. */
-export async function requireAthlete(event: H3Event) {
-  const caller = await requireTeamRole(event, 'athlete')
-  if (caller.role !== 'athlete') {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: 'This is for athletes; coaches open an athlete from the team page' })
-  }
-  return caller
 }

@@ -50,7 +50,7 @@ export async function takeAllowance(rules: RateRule[]) {
     return undefined
   }, { behavior: 'immediate' })
   if (full) {
-    throw createError({ statusCode: 429, statusMessage: 'Too many requests', message: full.message, data: { fields: { _: full.message } } })
+    refuseField('_', full.message, 429)
   }
   // Old hits are swept now and then; a day covers every window above.
   if (Math.random() < 0.05) await db.delete(rateEvents).where(lt(rateEvents.at, new Date(now - 24 * HOUR)))

@@ -2,8 +2,8 @@ import { randomBytes } from 'node:crypto'
 import { and, asc, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { exercises, formReviewComments, formReviews, mediaObjects, users } from '../db/schema'
-import { mediaExtensions } from '../../shared/schemas/exercise'
-import type { ReviewView } from '../../shared/schemas/review'
+import { mediaExtensions } from '#shared/schemas/exercise'
+import type { ReviewView } from '#shared/schemas/review'
 import type { Caller } from './auth'
 
 export function reviewPrefix(teamId: number, athleteId: number) {
@@ -12,10 +12,6 @@ export function reviewPrefix(teamId: number, athleteId: number) {
 
 export function newReviewKey(teamId: number, athleteId: number, contentType: string) {
   return `${reviewPrefix(teamId, athleteId)}${randomBytes(12).toString('hex')}.${mediaExtensions[contentType] ?? 'bin'}`
-}
-
-export function rejectField(field: string, message: string): never {
-  throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${field}: ${message}`, data: { fields: { [field]: message } } })
 }
 
 /**
@@ -35,20 +31,20 @@ export async function findReview(db: Database, caller: Caller, id: number) {
  * at most `maxSeconds`) and marks it ready; anything wrong deletes the object and answers 400 on `field`.
  */
 export async function confirmReviewClip(db: Database, teamId: number, athleteId: number, key: string, field: string, maxSeconds: number) {
-  if (!key.startsWith(reviewPrefix(teamId, athleteId)) || key.includes('..')) rejectField(field, 'This key is not in this athlete\'s review storage')
+  if (!key.startsWith(reviewPrefix(teamId, athleteId)) || key.includes('..')) refuseField(field, 'This key is not in this athlete\'s review storage')
   const [pending] = await db.select().from(mediaObjects)
     .where(and(eq(mediaObjects.key, key), eq(mediaObjects.teamId, teamId))).limit(1)
-  if (!pending || pending.exerciseId !== null) rejectField(field, 'No upload was started with this key')
-  if (pending.status !== 'pending') rejectField(field, 'This upload was already used or removed; start a new one')
+  if (!pending || pending.exerciseId !== null) refuseField(field, 'No upload was started with this key')
+  if (pending.status !== 'pending') refuseField(field, 'This upload was already used or removed; start a new one')
   const stored = await headObject(key)
-  if (!stored) rejectField(field, 'Nothing has been uploaded with this key yet')
+  if (!stored) refuseField(field, 'Nothing has been uploaded with this key yet')
   let problem = await uploadProblem(key, stored, pending)
   const metadata = problem ? null : await readClipMetadata(key, stored.size)
   if (metadata?.durationSeconds && metadata.durationSeconds > maxSeconds + 0.5) problem = `The clip is ${Math.round(metadata.durationSeconds)} s long; send at most ${maxSeconds} s`
   if (problem) {
     await deleteObject(key)
     await db.update(mediaObjects).set({ status: 'deleted' }).where(eq(mediaObjects.id, pending.id))
-    rejectField(field, `${problem}; it was discarded`)
+    refuseField(field, `${problem}; it was discarded`)
   }
   await db.update(mediaObjects).set({ status: 'ready', durationSeconds: metadata!.durationSeconds, width: metadata!.width, height: metadata!.height })
     .where(eq(mediaObjects.id, pending.id))

@@ -1,8 +1,8 @@
 import type { AthleteContext } from './athlete-context'
-import { hillPaceForEffort } from '../../shared/utils/pace'
-import { loadForPercent } from '../../shared/utils/strength'
-import type { RoutineStep } from '../../shared/utils/timeline'
-import type { ResolvedTarget } from '../../shared/types/routine'
+import { hillPaceForEffort } from '#shared/utils/pace'
+import { loadForPercent } from '#shared/utils/strength'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
+import type { ResolvedTarget } from '#shared/types/routine'
 
 /** Each target in the tree, by step id, with what it means for this athlete. */
 export function resolveRoutineTargets(steps: RoutineStep[], context: AthleteContext): Record<string, ResolvedTarget> {

@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { clipCues, exercises, routineExercises, routines } from '../db/schema'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
 
 type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0]
 
@@ -41,10 +41,7 @@ export async function assertRoutineExercises(db: Database, teamId: number, steps
     if (!row) fields[`${ref.path}.exerciseId`] ??= 'This exercise is not in your library'
     else if (row.archivedAt && !keepArchived.includes(ref.exerciseId)) fields[`${ref.path}.exerciseId`] ??= 'This exercise is archived; pick another one'
   }
-  const first = Object.entries(fields)[0]
-  if (first) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${first[0]}: ${first[1]}`, data: { fields } })
-  }
+  if (Object.keys(fields).length) refuseFields(fields)
 }
 
 /** The "where used" index of a routine, rewritten with each save inside the caller's transaction. */

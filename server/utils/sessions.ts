@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, entryLogs, memberships, sessionLogs, users } from '../db/schema'
 import type { Caller } from './auth'
-import { EDIT_WINDOW_DAYS } from '../../shared/schemas/session'
+import { EDIT_WINDOW_DAYS } from '#shared/schemas/session'
 
 /** An assignment of the calling athlete; anyone else's (or another team's) is a 404. */
 export async function findOwnAssignment(db: Database, caller: Caller, id: number) {
@@ -37,7 +37,7 @@ export function editableUntil(session: { startedAt: Date }) {
 
 export function assertEditable(session: { startedAt: Date }) {
   if (Date.now() > editableUntil(session).getTime()) {
-    throw createError({ statusCode: 409, statusMessage: 'Too late to edit', message: `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start`, data: { fields: { _: `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start` } } })
+    refuseField('_', `Sessions can be changed for ${EDIT_WINDOW_DAYS} days after they start`, 409)
   }
 }
 
@@ -100,7 +100,7 @@ export async function refreshFinishedStatus(db: Database, teamId: number, sessio
     .where(and(eq(assignments.id, session.assignmentId), eq(assignments.teamId, teamId))).limit(1)
   if (!assignment || (assignment.status !== 'done' && assignment.status !== 'partial')) return
   const entries = await db.select({ stepId: entryLogs.stepId, set: entryLogs.set, round: entryLogs.round }).from(entryLogs).where(eq(entryLogs.sessionId, session.id))
-  const logged = new Set(entries.map(entryKey))
+  const logged = new Set(entries.map(entry => segmentKey(entry)))
   const status = loggableKeys(assignment.snapshot).every(segment => logged.has(segment.key)) ? 'done' : 'partial'
   if (status !== assignment.status) await db.update(assignments).set({ status }).where(and(eq(assignments.id, assignment.id), eq(assignments.teamId, teamId)))
 }

@@ -1,9 +1,8 @@
 import { and, eq, inArray } from 'drizzle-orm'
-import { createError } from 'h3'
 import type { Database } from '../db/client'
 import { exercises, routines } from '../db/schema'
-import type { AssignmentSnapshot } from '../../shared/types/domain'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { AssignmentSnapshot } from '#shared/types/domain'
+import type { RoutineStep } from '#shared/schemas/routine-steps'
 
 type Reader = Pick<Database, 'select'>
 
@@ -27,9 +26,9 @@ export function exerciseIdsIn(steps: RoutineStep[]): number[] {
  */
 export async function snapshotRoutine(db: Reader, teamId: number, routineId: number, field = 'routineId') {
   const [routine] = await db.select().from(routines).where(and(eq(routines.id, routineId), eq(routines.teamId, teamId))).limit(1)
-  if (!routine) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such routine' })
+  if (!routine) notFound('No such routine')
   if (routine.archivedAt) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${field}: This routine is archived; restore it before assigning it`, data: { fields: { [field]: 'This routine is archived; restore it before assigning it' } } })
+    refuseField(field, 'This routine is archived; restore it before assigning it')
   }
   const ids = exerciseIdsIn(routine.steps)
   const rows = ids.length

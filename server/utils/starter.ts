@@ -3,7 +3,7 @@ import type { Database } from '../db/client'
 import { exercises, mediaObjects, routines } from '../db/schema'
 import { starterExercises, starterSlug } from '../starter/exercises'
 import { starterTemplates } from '../starter/routines'
-import { routineStepsSchema } from '../../shared/utils/timeline'
+import { routineStepsSchema } from '#shared/schemas/routine-steps'
 
 export interface StarterSetResult {
   exercisesAdded: number

@@ -10,7 +10,7 @@ import {
   type S3ClientConfig,
 } from '@aws-sdk/client-s3'
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner'
-import { mediaExtensions } from '../../shared/schemas/exercise'
+import { mediaExtensions } from '#shared/schemas/exercise'
 
 export const UPLOAD_URL_SECONDS = 10 * 60
 export const PLAYBACK_URL_SECONDS = 15 * 60
@@ -48,12 +48,7 @@ export function useObjectStore() {
 }
 
 function unavailable(): never {
-  throw createError({
-    statusCode: 503,
-    statusMessage: 'Storage unavailable',
-    message: 'The clip store cannot be reached right now, so clips cannot be uploaded or changed. Everything else in the library still works; try again in a few minutes.',
-    data: { fields: { _: 'The clip store cannot be reached right now; try again in a few minutes.' } },
-  })
+  refuse(503, 'The clip store cannot be reached right now, so clips cannot be uploaded or changed. Everything else in the library still works; try again in a few minutes.', { _: 'The clip store cannot be reached right now; try again in a few minutes.' })
 }
 
 function statusOf(error: unknown): number | undefined {

@@ -10,7 +10,7 @@ export async function assertTeamAthletes(db: Database, teamId: number, ids: numb
     .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.teamId, teamId), eq(memberships.role, 'athlete')))
     .where(inArray(users.id, ids))
   if (rows.length !== new Set(ids).size) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${field}: One or more athletes are not in your team`, data: { fields: { [field]: 'One or more athletes are not in your team' } } })
+    refuseField(field, 'One or more athletes are not in your team')
   }
   return rows
 }

@@ -12,7 +12,7 @@ const SLOW_AFTER_PER_EMAIL = 5
 const MAX_DELAY_MS = 4000
 
 export function clientAddress(event: H3Event) {
-  return getRequestIP(event, { xForwardedFor: process.env.TRUST_PROXY === 'true' }) ?? 'unknown'
+  return getRequestIP(event, { xForwardedFor: useServerConfig().trustProxy }) ?? 'unknown'
 }
 
 /** The wait before checking a password of an account with `failures` recent failures (0 for the first few). */
@@ -35,7 +35,7 @@ export async function assertLoginAllowed(email: string, ip: string) {
     db.select({ n: count() }).from(loginFailures).where(and(eq(loginFailures.email, email), gte(loginFailures.at, since))),
   ])
   if ((byPair?.n ?? 0) >= MAX_PER_EMAIL_AND_ADDRESS || (byAddress?.n ?? 0) >= MAX_PER_ADDRESS) {
-    throw createError({ statusCode: 429, statusMessage: 'Too many attempts', message: 'Too many failed sign-ins. Wait 15 minutes or reset your password.' })
+    refuse(429, 'Too many failed sign-ins. Wait 15 minutes or reset your password.')
   }
   const delay = loginDelayMs(byEmail?.n ?? 0)
   if (delay) await new Promise(resolve => setTimeout(resolve, delay))

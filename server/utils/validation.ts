@@ -1,16 +1,47 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
-import { fieldErrors } from '../../shared/utils/errors'
+import { fieldErrors, type FieldMessages } from '#shared/utils/errors'
+
+const reasons: Record<number, string> = {
+  400: 'Invalid input',
+  401: 'Unauthorized',
+  403: 'Forbidden',
+  404: 'Not found',
+  409: 'Conflict',
+  410: 'Gone',
+  413: 'Payload too large',
+  429: 'Too many requests',
+  503: 'Service unavailable',
+}
+
+/**
+ * The one way a route refuses a request. Every 4xx/503 has the same body:
+ * `{ statusCode, statusMessage, message, data: { message, fields, ...extra } }`, where `fields` maps a
+ * dotted input path (or `_` for the request as a whole) to a message for that field.
+ */
+export function refuse(statusCode: number, message: string, fields: FieldMessages = {}, extra: Record<string, unknown> = {}): never {
+  throw createError({ statusCode, statusMessage: reasons[statusCode] ?? 'Refused', message, data: { ...extra, message, fields } })
+}
+
+/** Refuses with messages for several fields; the summary names the first one. */
+export function refuseFields(fields: FieldMessages, statusCode = 400, extra: Record<string, unknown> = {}): never {
+  const [path, message] = Object.entries(fields)[0] ?? ['_', 'Invalid input']
+  refuse(statusCode, path === '_' ? message : `${path}: ${message}`, fields, extra)
+}
+
+/** Refuses because of one field, e.g. `refuseField('date', 'This day is full')`. */
+export function refuseField(field: string, message: string, statusCode = 400): never {
+  refuseFields({ [field]: message }, statusCode)
+}
+
+export function notFound(what = 'Not found'): never {
+  refuse(404, what)
+}
 
 function invalid(error: z.ZodError, where: string): never {
   const fields = fieldErrors(error)
   const first = Object.entries(fields)[0]
-  throw createError({
-    statusCode: 400,
-    statusMessage: 'Invalid input',
-    message: first ? `${first[0] === '_' ? where : first[0]}: ${first[1]}` : `Invalid ${where}`,
-    data: { fields },
-  })
+  refuse(400, first ? `${first[0] === '_' ? where : first[0]}: ${first[1]}` : `Invalid ${where}`, fields)
 }
 
 /** Reads a JSON body and validates it; malformed JSON and failed checks are 400s with field messages. */
@@ -20,7 +51,7 @@ export async function readBodyWith<S extends z.ZodType>(event: H3Event, schema: 
     body = await readBody(event)
   }
   catch {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The request body is not valid JSON', data: { fields: { _: 'The request body is not valid JSON' } } })
+    refuseField('_', 'The request body is not valid JSON')
   }
   assertShallow(body)
   const result = schema.safeParse(body ?? {})
@@ -41,8 +72,7 @@ export function assertShallow(body: unknown) {
     const [value, depth] = stack.pop()!
     if (value === null || typeof value !== 'object') continue
     if (depth > MAX_BODY_DEPTH) {
-      const message = `The request body is nested deeper than ${MAX_BODY_DEPTH} levels`
-      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message, data: { fields: { _: message } } })
+      refuseField('_', `The request body is nested deeper than ${MAX_BODY_DEPTH} levels`)
     }
     for (const child of Object.values(value)) {
       if (child !== null && typeof child === 'object') stack.push([child, depth + 1])
@@ -60,10 +90,6 @@ export function paramsWith<S extends z.ZodType>(event: H3Event, schema: S): z.ou
   const result = schema.safeParse(getRouterParams(event, { decode: true }))
   if (!result.success) invalid(result.error, 'path')
   return result.data
-}
-
-export function notFound(what = 'Not found'): never {
-  throw createError({ statusCode: 404, statusMessage: 'Not found', message: what })
 }
 
 /** Whether a database error is a unique-index violation (a race lost to a simultaneous request). */

@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { routineStepsSchema } from '../utils/timeline'
 import { routineCategories, routineCategoryLabels, type RoutineCategory } from '../utils/vocabulary'
+import { routineStepsSchema } from './routine-steps'
 
 export { routineCategories, routineCategoryLabels, type RoutineCategory }
 

@@ -1,4 +1,4 @@
-import type { RoutineStep } from '../utils/timeline'
+import type { RoutineStep } from '../schemas/routine-steps'
 import type { BodyArea } from '../utils/vocabulary'
 
 // Body areas, roles and the other enums live in the one vocabulary: shared/utils/vocabulary.ts.

@@ -1,6 +1,7 @@
 import type { MatchedCaution } from '../utils/cautions'
 import type { TrainingPaces } from '../utils/pace'
-import type { RoutineStep, Target, Timeline } from '../utils/timeline'
+import type { RoutineStep, Target } from '../schemas/routine-steps'
+import type { Timeline } from '../utils/timeline'
 
 export interface ResolvedTarget {
   target: Target

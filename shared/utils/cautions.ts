@@ -1,5 +1,5 @@
 import type { ExerciseCaution } from '../types/domain'
-import type { RoutineStep, Target } from './timeline'
+import type { RoutineStep, Target } from '../schemas/routine-steps'
 import type { BodyArea } from './vocabulary'
 
 // Every caution Switchback shows is chosen here: the exercise's own cautions, the cautions that follow

@@ -1,8 +1,17 @@
 import type { z } from 'zod'
 
-/** Field-level messages keyed by dotted path, e.g. `{ "steps.2.measure.seconds": "…" }`. */
-export function fieldErrors(error: z.ZodError): Record<string, string> {
-  const fields: Record<string, string> = {}
+/** Field-level messages keyed by dotted path, e.g. `{ "steps.2.measure.seconds": "…" }`; `_` is the whole request. */
+export type FieldMessages = Record<string, string>
+
+/** The `data` of every refusal the server sends (see server/utils/validation.ts). */
+export interface RefusalData {
+  message?: string
+  fields?: FieldMessages
+  [extra: string]: unknown
+}
+
+export function fieldErrors(error: z.ZodError): FieldMessages {
+  const fields: FieldMessages = {}
   for (const issue of error.issues) {
     const path = issue.path.map(String).join('.') || '_'
     fields[path] ??= issue.message

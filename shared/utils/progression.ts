@@ -1,5 +1,5 @@
-import { buildTimeline, MAX_REPEAT, MAX_STEP_SECONDS } from './timeline'
-import type { BlockStep, RoutineStep, SetsStep } from './timeline'
+import { MAX_REPEAT, MAX_STEP_SECONDS, type BlockStep, type RoutineStep, type SetsStep } from '../schemas/routine-steps'
+import { buildTimeline } from './timeline'
 
 // Week-by-week changes to a routine across a training block. Pure: the planner, the preview and the
 // tests all call these. Progressions (add a round a week, add load in plate steps), lighter weeks and

@@ -1,4 +1,4 @@
-import type { Measure, PaceZone, RoutineStep, Target } from './timeline'
+import type { Measure, PaceZone, RoutineStep, Target } from '../schemas/routine-steps'
 import { formatDuration } from './pace'
 import { blockKindLabels, effortWords, plural, stepTypeLabels } from './vocabulary'
 

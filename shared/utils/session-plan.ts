@@ -2,7 +2,8 @@ import type { AssignmentSnapshot, SnapshotExercise } from '../types/domain'
 import { generalCautions, matchCautions, stepCautionsFor, type InjuryNoteLike, type MatchedCaution, type StepCautionKey } from './cautions'
 import type { TrainingPaces } from './pace'
 import { loadForPercent } from './strength'
-import { buildTimeline, type Target, type TimelineSegment } from './timeline'
+import type { Target } from '../schemas/routine-steps'
+import { buildTimeline, type TimelineSegment } from './timeline'
 import type { BlockKind } from './vocabulary'
 
 // What the player runs: the assignment's snapshot turned into one athlete's segments, with their
@@ -72,6 +73,15 @@ function flatRound(segment: TimelineSegment): number | null {
   return segment.rounds.reduce((total, round) => total * round.of + (round.round - 1), 0) + 1
 }
 
+/**
+ * The one spelling of a segment's key, `step:round:set` with `:kind` for anything but work, used by
+ * the plan, the player's logged sets and the server's "is this set in the routine" check.
+ */
+export function segmentKey(segment: { stepId: string, round?: number | null, set?: number | null, kind?: string }) {
+  const base = `${segment.stepId}:${segment.round ?? 0}:${segment.set ?? 0}`
+  return !segment.kind || segment.kind === 'work' ? base : `${base}:${segment.kind}`
+}
+
 export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete): SessionPlan {
   const timeline = buildTimeline(snapshot.steps, { paces: athlete.paces ?? undefined })
   const exercises = new Map(snapshot.exercises.map(exercise => [exercise.id, exercise]))
@@ -95,7 +105,7 @@ export function planSession(snapshot: AssignmentSnapshot, athlete: PlanAthlete):
     const stepCautions = isRest && segment.set ? [] : stepCautionsFor({ kind: segment.kind, grade: segment.grade, target, exerciseCategory: exercise?.category })
     return {
       index,
-      key: `${segment.stepId}:${round ?? 0}:${segment.set ?? 0}${segment.kind === 'work' ? '' : `:${segment.kind}`}`,
+      key: segmentKey({ stepId: segment.stepId, round, set: segment.set, kind: segment.kind }),
       stepId: segment.stepId,
       kind: segment.kind,
       label: segment.kind === 'rest' && segment.set ? 'Rest' : exercise?.name ?? segment.label,

@@ -9,23 +9,11 @@ import type { ApiClient, FieldError } from '../support/client'
 import { createRoutine, insertHistory, insertPainFlag, openTestDatabase, type HistoryDay } from '../support/insights-data'
 import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import type { AthleteReport, PainFlagItem, TeamInsights } from '../../types/api'
 
-interface Compliance { done: number, assigned: number, percent: number | null }
-interface TeamRow { athleteId: number, name: string, compliance7: Compliance, compliance28: Compliance, lastSession: string | null, weekLoad: number, acwrRolling: number | null, acwrEwma: number | null, openPainFlags: number, squads: { id: number }[] }
-interface TeamAnswer { rows: TeamRow[], total: number, page: number, pages: number }
-interface Week { weekStart: string, load: number, sessions: number, acwrRolling: number | null, acwrEwma: number | null }
-interface AthleteAnswer {
-  athlete: { id: number }
-  today: string
-  summary: { compliance7: Compliance, compliance28: Compliance, weekLoad: number, acwrRolling: number | null, acwrEwma: number | null, openPainFlags: number }
-  weeks: Week[]
-  calendar: { day: string, assignments: { done: boolean }[], sessions: number }[]
-  pain: { day: string, pain: number, area: string | null }[]
-  strength: { name: string, points: { day: string, bestE1rmKg: number | null, volumeLoadKg: number }[] }[]
-  sessions: { id: number, day: string, load: number | null, durationMin: number | null, sessionRpe: number | null, pain: number | null }[]
-  notes: { note: string }[]
-}
-interface Flag { id: number, athleteId: number, athleteName: string, status: string, reply: string | null, pain: number, area: string | null, note: string, day: string, routine: string }
+type TeamAnswer = TeamInsights
+type AthleteAnswer = AthleteReport
+type Flag = PainFlagItem
 
 let stack: Stack
 let db: Database

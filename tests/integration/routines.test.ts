@@ -4,7 +4,7 @@ import { ApiClient, type FieldError } from '../support/client'
 import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
 import type { RoutinePreview } from '../../shared/types/routine'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '../../shared/schemas/routine-steps'
 
 let stack: Stack
 let sql: Client

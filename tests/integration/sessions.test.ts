@@ -98,7 +98,7 @@ describe('the session plan', () => {
   it('is only for the assigned athlete', async () => {
     const { id } = await assign()
     expect((await teammate.athlete.get(`/api/assignments/${id}/plan`)).status).toBe(404)
-    expect((await team.coach.get(`/api/assignments/${id}/plan`)).status).toBe(404)
+    expect((await team.coach.get(`/api/assignments/${id}/plan`)).status).toBe(403)
     expect((await outsider.athlete.get(`/api/assignments/${id}/plan`)).status).toBe(404)
     expect((await athlete.athlete.get('/api/assignments/999999/plan')).status).toBe(404)
     expect((await athlete.athlete.get('/api/assignments/abc/plan')).status).toBe(400)
@@ -115,7 +115,7 @@ describe('logging a session', () => {
     expect(again.data.id).toBe(first.data.id)
     expect((await teammate.athlete.post(`/api/assignments/${id}/sessions`, { clientId: 'client-start-2' })).status).toBe(404)
     expect((await outsider.athlete.post(`/api/assignments/${id}/sessions`, { clientId: 'client-start-3' })).status).toBe(404)
-    expect((await team.coach.post(`/api/assignments/${id}/sessions`, { clientId: 'client-start-4' })).status).toBe(404)
+    expect((await team.coach.post(`/api/assignments/${id}/sessions`, { clientId: 'client-start-4' })).status).toBe(403)
     const bad = await athlete.athlete.post<FieldError>(`/api/assignments/${id}/sessions`, { clientId: 'x' })
     expect(bad.status).toBe(400)
     expect(bad.data.data?.fields?.clientId).toMatch(/at least 8/)
@@ -166,7 +166,7 @@ describe('logging a session', () => {
     const session = (await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-scope-1' })).data
     const body = { idempotencyKey: 'client-scope-1:plank:0:0', stepId: 'plank', seconds: 30 }
     expect((await teammate.athlete.post(`/api/sessions/${session.id}/entries`, body)).status).toBe(404)
-    expect((await team.coach.post(`/api/sessions/${session.id}/entries`, body)).status).toBe(404)
+    expect((await team.coach.post(`/api/sessions/${session.id}/entries`, body)).status).toBe(403)
     expect((await outsider.athlete.post(`/api/sessions/${session.id}/entries`, body)).status).toBe(404)
     expect((await teammate.athlete.post(`/api/sessions/${session.id}/finish`, { sessionRpe: 5 })).status).toBe(404)
     expect((await athlete.athlete.post(`/api/sessions/${session.id}/entries`, body)).status).toBe(201)
@@ -286,7 +286,7 @@ describe('the logbook', () => {
     expect((await athlete.athlete.patch<FieldError>(`/api/entries/${entry.id}`, { kg: 2000 })).data.data?.fields?.kg).toMatch(/500/)
     expect((await athlete.athlete.patch(`/api/entries/${entry.id}`, {})).status).toBe(400)
     expect((await teammate.athlete.patch(`/api/entries/${entry.id}`, { reps: 1 })).status).toBe(404)
-    expect((await team.coach.patch(`/api/entries/${entry.id}`, { reps: 1 })).status).toBe(404)
+    expect((await team.coach.patch(`/api/entries/${entry.id}`, { reps: 1 })).status).toBe(403)
     await fixtures.rows('update session_logs set started_at = ? where id = ?', [Date.now() - 8 * 86_400_000, session.id])
     const late = await athlete.athlete.patch<FieldError>(`/api/entries/${entry.id}`, { reps: 7 })
     expect(late.status).toBe(409)
@@ -319,7 +319,13 @@ describe('the athlete profile', () => {
     expect(bad.status).toBe(400)
     expect(Object.keys(bad.data.data?.fields ?? {})).toEqual(expect.arrayContaining(['hrMax', 'hrRest', 'units', 'benchmarkDate']))
     expect((await teammate.athlete.get<Profile>('/api/me/profile')).data.profile.hrMax).toBe(191)
-    expect((await team.coach.get('/api/me/profile')).status).toBe(403)
+    const refused = await team.coach.get<FieldError>('/api/me/profile')
+    expect(refused.status).toBe(403)
+    // Every refusal has the same shape: a summary and (possibly empty) field messages.
+    expect(refused.data).toMatchObject({ statusCode: 403, data: { message: expect.stringMatching(/for athletes/), fields: {} } })
+    for (const path of ['/api/me/pain-flags', '/api/me/assignments', '/api/me/logbook', '/api/me/notifications', '/api/me/paces', '/api/me/insights', '/api/me/calendar-feed']) {
+      expect((await team.coach.get(path)).status, path).toBe(403)
+    }
   })
 
   it('adds and resolves injury notes', async () => {

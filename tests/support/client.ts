@@ -1,3 +1,4 @@
+import type { RefusalData } from '../../shared/utils/errors'
 /** A small HTTP client with its own cookie jar: one per signed-in person in a test. */
 export class ApiClient {
   constructor(readonly baseUrl: string, readonly headers: Record<string, string> = {}, private cookies = new Map<string, string>()) {}
@@ -61,4 +62,4 @@ export function uniqueEmail(prefix = 'person') {
   return `${prefix}.${Date.now().toString(36)}${counter}@example.test`
 }
 
-export interface FieldError { statusCode: number, message: string, data?: { fields?: Record<string, string> } }
+export interface FieldError { statusCode: number, message: string, data?: RefusalData }

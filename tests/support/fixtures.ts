@@ -1,6 +1,6 @@
 import { createClient, type Client } from '@libsql/client'
 import type { AssignmentSnapshot, ExerciseCaution } from '../../shared/types/domain'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '../../shared/schemas/routine-steps'
 import type { Stack } from './stack'
 
 // Rows written straight into the test database, for tests whose subject needs routines, exercises

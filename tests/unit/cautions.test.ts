@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { cautionsForStep, generalCautions, heavySetNote, matchCautions, routineStepCautions, stepCautionsFor, stepCautionTable } from '../../shared/utils/cautions'
 import { loadForPercent } from '../../shared/utils/strength'
-import { routineStepsSchema, type RoutineStep } from '../../shared/utils/timeline'
+import { routineStepsSchema, type RoutineStep } from '../../shared/schemas/routine-steps'
 
 // The body-area table is common practice, no published source: these tests pin the mapping the
 // issue asks for, so a change to it is a deliberate one.

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { renderEmail } from '../../server/utils/email-templates'
 import { exerciseIdsIn } from '../../server/utils/snapshot'
 import { shownStatus } from '../../shared/utils/assignment-status'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '../../shared/schemas/routine-steps'
 
 describe('shownStatus', () => {
   it('is overdue only for planned sessions before the athlete\'s today', () => {

@@ -3,7 +3,7 @@ import {
   baseValue, describeChanges, keyNumbers, planWeek, progressedValue, roundToPlates, ruleProblem, scaleVolume,
   taperWeeks, weekKind, weekOfBlock, type BlockShape, type ProgressionRule,
 } from '../../shared/utils/progression'
-import type { RoutineStep } from '../../shared/utils/timeline'
+import type { RoutineStep } from '../../shared/schemas/routine-steps'
 
 // Progressions, lighter weeks and tapers are common coaching practice, no published source: these
 // tests check the arithmetic the coach asked for, with every expected value worked out by hand below.

@@ -1,7 +1,8 @@
 import { createPinia, setActivePinia } from 'pinia'
 import { beforeEach, describe, expect, it } from 'vitest'
-import { HISTORY_LIMIT, locatePath, ROOT, useRoutineDraftStore } from '../../stores/routineDraft'
-import type { BlockStep, RepeatStep, RoutineStep } from '../../shared/utils/timeline'
+import { HISTORY_LIMIT, ROOT, useRoutineDraftStore } from '../../stores/routineDraft'
+import { locatePath } from '../../shared/utils/step-tree'
+import type { BlockStep, RepeatStep, RoutineStep } from '../../shared/schemas/routine-steps'
 
 const block = (id: string, kind: BlockStep['kind'], seconds: number, extra: Partial<BlockStep> = {}): BlockStep =>
   ({ id, type: 'block', kind, measure: { by: 'time', seconds }, ...extra })

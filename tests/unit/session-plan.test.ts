@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
 import { trainingPaces } from '../../shared/utils/pace'
-import { planSession } from '../../shared/utils/session-plan'
+import { planSession, segmentKey } from '../../shared/utils/session-plan'
 
 const snapshot: AssignmentSnapshot = {
   title: 'Hills and legs',
@@ -58,5 +58,19 @@ describe('planSession', () => {
     expect(plan.equipment).toEqual(['Barbell', 'Rack'])
     expect(plan.generalCautions.some(text => /downhill/.test(text))).toBe(true)
     expect(plan.generalCautions.some(text => /Land softly/.test(text))).toBe(false)
+  })
+})
+
+describe('segmentKey', () => {
+  it('spells a logged entry the same way as the plan spells its work segment', () => {
+    const plan = planSession(snapshot, { paces: null, estimatedMaxKg: {}, injuryNotes: [] })
+    for (const segment of plan.segments.filter(item => item.loggable)) {
+      expect(segmentKey({ stepId: segment.stepId, round: segment.round, set: segment.set })).toBe(segment.key)
+    }
+  })
+
+  it('keeps rests apart from the work of the same set', () => {
+    expect(segmentKey({ stepId: 'squat', round: null, set: 2 })).toBe('squat:0:2')
+    expect(segmentKey({ stepId: 'squat', round: null, set: 2, kind: 'rest' })).toBe('squat:0:2:rest')
   })
 })

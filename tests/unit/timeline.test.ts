@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import { fieldErrors } from '../../shared/utils/errors'
 import { trainingPaces } from '../../shared/utils/pace'
-import { DEFAULT_PACE_S_PER_KM, MAX_SEGMENTS, buildTimeline, routineStepsSchema } from '../../shared/utils/timeline'
-import type { BlockStep, Measure, RoutineStep, SetsStep, Target } from '../../shared/utils/timeline'
+import { MAX_SEGMENTS, routineStepsSchema } from '../../shared/schemas/routine-steps'
+import { DEFAULT_PACE_S_PER_KM, buildTimeline } from '../../shared/utils/timeline'
+import type { BlockStep, Measure, RoutineStep, SetsStep, Target } from '../../shared/schemas/routine-steps'
 
 let nextId = 0
 const block = (kind: BlockStep['kind'], measure: Measure, extra: Partial<BlockStep> = {}): BlockStep =>

@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { assignments } from '../../db/schema'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { assignmentPatchSchema } from '../../../shared/schemas/planner'
+import { idParamsSchema } from '#shared/schemas/common'
+import { assignmentPatchSchema } from '#shared/schemas/planner'
 
 /**
  * Moves an assignment to another day and/or athlete, or changes its note. Work already done stays where it is.
@@ -18,11 +18,11 @@ export default defineEventHandler(async (event) => {
   const newAthlete = body.athleteId && body.athleteId !== assignment.athleteId ? body.athleteId : null
   if ((newDate || newAthlete) && assignment.status !== 'planned') {
     const field = newDate ? 'date' : 'athleteId'
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: `${field}: This session has been logged, so it stays where it is`, data: { fields: { [field]: 'This session has been logged, so it stays where it is' } } })
+    refuseField(field, 'This session has been logged, so it stays where it is', 409)
   }
   const people = await athletesById(db, caller.teamId, [assignment.athleteId, ...(newAthlete ? [newAthlete] : [])])
   if (newAthlete && !people.some(person => person.id === newAthlete)) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'athleteId: This athlete is not in your team', data: { fields: { athleteId: 'This athlete is not in your team' } } })
+    refuseField('athleteId', 'This athlete is not in your team')
   }
   const updated = await db.transaction(async (tx) => {
     const [updated] = await tx.update(assignments)

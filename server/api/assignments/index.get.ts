@@ -1,8 +1,8 @@
 import { and, asc, eq, gte, inArray, lte } from 'drizzle-orm'
 import { assignments, assignmentSeries, memberships, routines, users } from '../../db/schema'
-import { assignmentRangeSchema } from '../../../shared/schemas/planner'
-import { shownStatus } from '../../../shared/utils/assignment-status'
-import { todayIn } from '../../../shared/utils/dates'
+import { assignmentRangeSchema } from '#shared/schemas/planner'
+import { shownStatus } from '#shared/utils/assignment-status'
+import { todayIn } from '#shared/utils/dates'
 
 /** The team's plan between two days, optionally for one athlete or the current members of one squad. */
 export default defineEventHandler(async (event) => {

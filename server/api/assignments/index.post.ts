@@ -1,7 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import { assignmentBatches, assignments, assignmentSeries } from '../../db/schema'
-import { assignSchema } from '../../../shared/schemas/planner'
-import { seriesDates } from '../../../shared/utils/dates'
+import { assignSchema } from '#shared/schemas/planner'
+import { seriesDates } from '#shared/utils/dates'
 
 interface BatchResult {
   created: number
@@ -33,17 +33,17 @@ export default defineEventHandler(async (event) => {
   if (body.squadId) {
     await findTeamSquad(db, caller.teamId, body.squadId)
     const members = await squadAthletes(db, caller.teamId, body.squadId)
-    if (!members.length && !ids.size) tooMany('squadId', 'This squad has no athletes yet')
+    if (!members.length && !ids.size) refuseField('squadId', 'This squad has no athletes yet')
     members.forEach(id => ids.add(id))
   }
   const athletes = await assertTeamAthletes(db, caller.teamId, [...ids])
   for (const key of Object.keys(body.athleteNotes ?? {})) {
-    if (!ids.has(Number(key))) tooMany(`athleteNotes.${key}`, 'This athlete is not in the batch')
+    if (!ids.has(Number(key))) refuseField(`athleteNotes.${key}`, 'This athlete is not in the batch')
   }
 
   const dates = body.series ? seriesDates(body.series) : [...new Set(body.dates)].sort()
   if (dates.length * athletes.length > MAX_BATCH_ASSIGNMENTS) {
-    tooMany(body.series ? 'series' : 'dates', `That makes ${dates.length * athletes.length} sessions; assign at most ${MAX_BATCH_ASSIGNMENTS} at once`)
+    refuseField(body.series ? 'series' : 'dates', `That makes ${dates.length * athletes.length} sessions; assign at most ${MAX_BATCH_ASSIGNMENTS} at once`)
   }
 
   const { routine, snapshot } = await snapshotRoutine(db, caller.teamId, body.routineId)
@@ -60,7 +60,7 @@ export default defineEventHandler(async (event) => {
       // The unique (team, key) index makes a simultaneous second request fail here instead of planning twice.
       const claimed = await tx.insert(assignmentBatches).values({ teamId: caller.teamId, idempotencyKey: body.idempotencyKey, createdById: caller.userId })
         .onConflictDoNothing().returning({ id: assignmentBatches.id })
-      if (!claimed.length) throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This plan is already being saved' })
+      if (!claimed.length) refuse(409, 'This plan is already being saved')
     }
     let seriesId: number | null = null
     if (body.series) {

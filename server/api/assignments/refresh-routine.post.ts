@@ -1,7 +1,7 @@
 import { and, eq, inArray, isNull } from 'drizzle-orm'
 import { assignments, users } from '../../db/schema'
-import { refreshRoutineSchema } from '../../../shared/schemas/planner'
-import { todayIn } from '../../../shared/utils/dates'
+import { refreshRoutineSchema } from '#shared/schemas/planner'
+import { todayIn } from '#shared/utils/dates'
 
 /**
  * The explicit "update future assignments to the latest version" action: every still-planned

@@ -1,8 +1,8 @@
 import { desc, eq } from 'drizzle-orm'
-import { loginSchema } from '../../../shared/schemas/auth'
+import { loginSchema } from '#shared/schemas/auth'
 import { memberships, teams, users } from '../../db/schema'
 
-const wrong = () => createError({ statusCode: 401, statusMessage: 'Unauthorized', message: 'E-mail or password is wrong' })
+const wrong = () => refuse(401, 'E-mail or password is wrong')
 
 export default defineEventHandler(async (event) => {
   const input = await readBodyWith(event, loginSchema)

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { passwordResetRequestSchema } from '../../../shared/schemas/auth'
+import { passwordResetRequestSchema } from '#shared/schemas/auth'
 import { passwordResets, users } from '../../db/schema'
 
 async function queueReset(email: string) {

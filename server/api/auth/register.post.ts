@@ -1,13 +1,13 @@
 import { eq } from 'drizzle-orm'
-import { registerSchema } from '../../../shared/schemas/auth'
+import { registerSchema } from '#shared/schemas/auth'
 import { memberships, teams, users } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {
   const input = await readBodyWith(event, registerSchema)
   const db = await useDb()
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).limit(1)
-  const taken = () => createError({ statusCode: 409, statusMessage: 'Conflict', message: 'An account with this e-mail already exists', data: { fields: { email: 'An account with this e-mail already exists; sign in instead' } } })
-  if (existing) throw taken()
+  const taken = (): never => refuse(409, 'An account with this e-mail already exists', { email: 'An account with this e-mail already exists; sign in instead' })
+  if (existing) taken()
   const passwordHash = await hashPassword(input.password)
   // Two registrations at the same moment both pass the check above; the unique index decides.
   const { user, team } = await db.transaction(async (tx) => {
@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
     await tx.insert(memberships).values({ teamId: team!.id, userId: user!.id, role: 'head_coach' })
     return { user: user!, team: team! }
   }).catch((error: unknown) => {
-    if (isUniqueViolation(error)) throw taken()
+    if (isUniqueViolation(error)) taken()
     throw error
   })
   await signIn(event, user, team.id, 'head_coach')

@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { blocks } from '../../db/schema'
-import { blockInputSchema } from '../../../shared/schemas/block'
-import { idParamsSchema } from '../../../shared/schemas/common'
+import { blockInputSchema } from '#shared/schemas/block'
+import { idParamsSchema } from '#shared/schemas/common'
 
 /** Changes a block's settings. Planned sessions stay as they are until the coach re-plans the weeks ahead. */
 export default defineEventHandler(async (event) => {
@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const db = await useDb()
   const { block } = await loadBlock(db, caller.teamId, id)
   if (block.plannedAt && input.startDate !== block.startDate) {
-    badField('startDate', 'This block is planned; its start cannot move (make a new block instead)')
+    refuseField('startDate', 'This block is planned; its start cannot move (make a new block instead)')
   }
   await checkBlockInput(db, caller.teamId, input, id)
   await db.transaction(async (tx) => {

@@ -1,6 +1,6 @@
 import { and, asc, count, eq, sql } from 'drizzle-orm'
 import { assignments, blockRoutines, blocks } from '../../db/schema'
-import { addDays } from '../../../shared/utils/dates'
+import { addDays } from '#shared/utils/dates'
 
 /** The team's blocks, newest start first, with how far each has been planned. */
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { blocks } from '../../db/schema'
-import { blockInputSchema } from '../../../shared/schemas/block'
+import { blockInputSchema } from '#shared/schemas/block'
 
 /** Saves a block (not yet planned: planning is its own step, after the preview). */
 export default defineEventHandler(async (event) => {

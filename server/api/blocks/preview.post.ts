@@ -1,4 +1,4 @@
-import { blockInputSchema } from '../../../shared/schemas/block'
+import { blockInputSchema } from '#shared/schemas/block'
 
 /** Weeks × routines for a block as drafted, before it is saved: the same numbers planning would write. */
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { checklistSchema } from '../../../shared/schemas/team'
+import { checklistSchema } from '#shared/schemas/team'
 import { teams } from '../../db/schema'
 
 /** Hides (or brings back) the first-run checklist on the coach's home, for the whole team. */

@@ -1,11 +1,11 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { entryPatchSchema } from '../../../shared/schemas/session'
+import { idParamsSchema } from '#shared/schemas/common'
+import { entryPatchSchema } from '#shared/schemas/session'
 import { entryLogs } from '../../db/schema'
 
 /** Corrects a logged set or interval, by its athlete, within the edit window. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const body = await readBodyWith(event, entryPatchSchema)
   const db = await useDb()

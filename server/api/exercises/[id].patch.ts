@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { exercisePatchSchema } from '../../../shared/schemas/exercise'
+import { idParamsSchema } from '#shared/schemas/common'
+import { exercisePatchSchema } from '#shared/schemas/exercise'
 import { exercises } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {
@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const { clip } = await findTeamExercise(db, caller, id)
   if (input.name !== undefined) await assertExerciseNameFree(db, caller.teamId, input.name, id)
   if (Object.keys(input).length === 0) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'Nothing to change', data: { fields: { _: 'Nothing to change' } } })
+    refuseField('_', 'Nothing to change')
   }
   const [updated] = await db.update(exercises).set(input).where(and(eq(exercises.id, id), eq(exercises.teamId, caller.teamId))).returning()
   if (!updated) notFound('No such exercise')

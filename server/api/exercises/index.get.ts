@@ -1,5 +1,5 @@
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm'
-import { exerciseListQuerySchema } from '../../../shared/schemas/exercise'
+import { exerciseListQuerySchema } from '#shared/schemas/exercise'
 import { exercises, mediaObjects } from '../../db/schema'
 
 function likePattern(text: string) {

@@ -1,4 +1,4 @@
-import { exerciseInputSchema } from '../../../shared/schemas/exercise'
+import { exerciseInputSchema } from '#shared/schemas/exercise'
 import { exercises } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

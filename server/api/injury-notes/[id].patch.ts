@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { injuryNotePatchSchema } from '../../../shared/schemas/profile'
+import { idParamsSchema } from '#shared/schemas/common'
+import { injuryNotePatchSchema } from '#shared/schemas/profile'
 import { injuryNotes } from '../../db/schema'
 
 /** The athlete edits or resolves their own note; their coaches may too. */

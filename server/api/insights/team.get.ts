@@ -1,5 +1,5 @@
-import { teamInsightsQuerySchema } from '../../../shared/schemas/insights'
-import { RATIO_BAND } from '../../../shared/utils/insights'
+import { teamInsightsQuerySchema } from '#shared/schemas/insights'
+import { RATIO_BAND } from '#shared/utils/insights'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)

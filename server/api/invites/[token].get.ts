@@ -1,4 +1,4 @@
-import { tokenParamsSchema } from '../../../shared/schemas/auth'
+import { tokenParamsSchema } from '#shared/schemas/auth'
 
 export default defineEventHandler(async (event) => {
   const { token } = paramsWith(event, tokenParamsSchema)

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm'
-import { inviteSchema } from '../../../shared/schemas/auth'
+import { inviteSchema } from '#shared/schemas/auth'
 import { invites, memberships, squads, users } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {
@@ -9,13 +9,13 @@ export default defineEventHandler(async (event) => {
   const db = await useDb()
   if (input.squadId) {
     const [squad] = await db.select({ id: squads.id }).from(squads).where(and(eq(squads.id, input.squadId), eq(squads.teamId, caller.teamId))).limit(1)
-    if (!squad) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'squadId: No such squad in your team', data: { fields: { squadId: 'No such squad in your team' } } })
+    if (!squad) refuseField('squadId', 'No such squad in your team')
   }
   const [member] = await db.select({ id: users.id }).from(users)
     .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.teamId, caller.teamId)))
     .where(eq(users.email, input.email)).limit(1)
   if (member) {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'This person is already in your team', data: { fields: { email: 'This person is already in your team' } } })
+    refuse(409, 'This person is already in your team', { email: 'This person is already in your team' })
   }
   await takeAllowance(mailRules(input.email, clientAddress(event), caller.teamId))
   const invite = await db.transaction(async (tx) => {

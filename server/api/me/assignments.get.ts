@@ -1,17 +1,17 @@
 import { and, asc, eq, gte, lte } from 'drizzle-orm'
 import { assignments } from '../../db/schema'
-import { myAssignmentRangeSchema } from '../../../shared/schemas/planner'
-import { shownStatus } from '../../../shared/utils/assignment-status'
-import { addDays, todayIn } from '../../../shared/utils/dates'
+import { myAssignmentRangeSchema } from '#shared/schemas/planner'
+import { shownStatus } from '#shared/utils/assignment-status'
+import { addDays, todayIn } from '#shared/utils/dates'
 
 /** The caller's own assignments (default: today and the next four weeks, plus `missedDays` before today), in their time zone. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const query = queryWith(event, myAssignmentRangeSchema)
   const today = todayIn(caller.timezone)
   const from = query.from ?? addDays(today, -(query.missedDays ?? 0))
   const to = query.to ?? addDays(query.from ?? today, 27)
-  if (to < from) tooMany('to', 'The end comes before the start')
+  if (to < from) refuseField('to', 'The end comes before the start')
   const db = await useDb()
   const rows = await db.select({
     id: assignments.id,

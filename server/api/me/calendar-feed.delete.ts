@@ -1,6 +1,6 @@
 /** Turns the private feed off. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const db = await useDb()
   await replaceCalendarFeed(db, caller.teamId, caller.userId, { revokeOnly: true })
   setResponseStatus(event, 204)

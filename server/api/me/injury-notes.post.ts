@@ -1,4 +1,4 @@
-import { injuryNoteSchema } from '../../../shared/schemas/profile'
+import { injuryNoteSchema } from '#shared/schemas/profile'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireAthlete(event)

@@ -1,7 +1,7 @@
-import { logbookQuerySchema } from '../../../shared/schemas/session'
+import { logbookQuerySchema } from '#shared/schemas/session'
 
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const range = queryWith(event, logbookQuerySchema)
   const db = await useDb()
   return { sessions: await loadLogbook(db, caller.teamId, caller.userId, range) }

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, gte, lt } from 'drizzle-orm'
 import { z } from 'zod'
-import { idParam } from '../../../shared/schemas/common'
-import { todayIn } from '../../../shared/utils/dates'
+import { idParam } from '#shared/schemas/common'
+import { todayIn } from '#shared/utils/dates'
 import { assignments } from '../../db/schema'
 
 const querySchema = z.object({ routineId: idParam })

@@ -1,10 +1,10 @@
 import { eq } from 'drizzle-orm'
 import { athleteProfiles } from '../../db/schema'
-import { racePaceTable } from '../../../shared/utils/race-paces'
+import { racePaceTable } from '#shared/utils/race-paces'
 
 /** Race equivalents and training paces from the signed-in athlete's benchmark race, in km and mile units. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const db = await useDb()
   const [profile] = await db.select().from(athleteProfiles)
     .where(eq(athleteProfiles.userId, caller.userId)).limit(1)

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm'
-import { painFlagEmailsSchema } from '../../../shared/schemas/safety'
+import { painFlagEmailsSchema } from '#shared/schemas/safety'
 import { memberships } from '../../db/schema'
 
 /** Turns the caller's e-mails about new pain reports on or off (coaches only). */

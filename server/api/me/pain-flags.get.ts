@@ -1,6 +1,6 @@
 /** The signed-in athlete's pain flags with the coach's replies, newest first. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const db = await useDb()
   return listPainFlags(db, caller.teamId, { athleteId: caller.userId, limit: 100 })
 })

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { changePasswordSchema } from '../../../shared/schemas/auth'
+import { changePasswordSchema } from '#shared/schemas/auth'
 import { users } from '../../db/schema'
 
 // Changing the password keeps this session and ends every other one.
@@ -12,7 +12,7 @@ export default defineEventHandler(async (event) => {
   const [user] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, caller.userId)).limit(1)
   if (!user || !(await verifyPassword(user.passwordHash, input.currentPassword))) {
     await recordLoginFailure(caller.email, ip)
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'currentPassword: This is not your current password', data: { fields: { currentPassword: 'This is not your current password' } } })
+    refuseField('currentPassword', 'This is not your current password')
   }
   await db.update(users).set({ passwordHash: await hashPassword(input.newPassword) }).where(eq(users.id, caller.userId))
   const ended = await endAllSignIns(caller.userId, await currentSid(event))

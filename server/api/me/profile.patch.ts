@@ -1,4 +1,4 @@
-import { profilePatchSchema } from '../../../shared/schemas/profile'
+import { profilePatchSchema } from '#shared/schemas/profile'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireAthlete(event)

@@ -1,4 +1,4 @@
-import { switchTeamSchema } from '../../../shared/schemas/team'
+import { switchTeamSchema } from '#shared/schemas/team'
 
 /** Switches the team the session is scoped to; only a team the caller belongs to. */
 export default defineEventHandler(async (event) => {

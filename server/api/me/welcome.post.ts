@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
-import { welcomeSchema } from '../../../shared/schemas/team'
-import { injuryNoteSchema } from '../../../shared/schemas/profile'
+import { welcomeSchema } from '#shared/schemas/team'
+import { injuryNoteSchema } from '#shared/schemas/profile'
 import { users } from '../../db/schema'
 
 /** Saves what the athlete chose to answer on their first visit (or that they skipped), so the questions stop. */
@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   const db = await useDb()
   const injury = input.injury && !input.skip ? injuryNoteSchema.safeParse({ ...input.injury, status: 'active' }) : null
   if (injury && !injury.success) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'injury.bodyArea: Pick a body area from the list', data: { fields: { 'injury.bodyArea': 'Pick a body area from the list' } } })
+    refuseField('injury.bodyArea', 'Pick a body area from the list')
   }
   if (!input.skip) {
     const patch = {

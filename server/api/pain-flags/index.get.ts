@@ -1,4 +1,4 @@
-import { painFlagsQuerySchema } from '../../../shared/schemas/insights'
+import { painFlagsQuerySchema } from '#shared/schemas/insights'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)

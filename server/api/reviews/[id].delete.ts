@@ -1,6 +1,6 @@
 import { eq, inArray } from 'drizzle-orm'
 import { formReviews, mediaObjects } from '../../db/schema'
-import { reviewParamsSchema } from '../../../shared/schemas/review'
+import { reviewParamsSchema } from '#shared/schemas/review'
 
 /** The athlete deletes their review: the clip (and any reply) leave the store first, then the records. */
 export default defineEventHandler(async (event) => {
@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const { id } = paramsWith(event, reviewParamsSchema)
   const db = await useDb()
   const review = await findReview(db, caller, id)
-  if (review.athleteId !== caller.userId) throw createError({ statusCode: 403, statusMessage: 'Not yours', message: 'Only the athlete who sent a clip can delete it' })
+  if (review.athleteId !== caller.userId) refuse(403, 'Only the athlete who sent a clip can delete it')
   const mediaIds = [review.clipId, review.replyClipId].filter((value): value is number => value !== null)
   const media = await db.select().from(mediaObjects).where(inArray(mediaObjects.id, mediaIds))
   // With the store down this answers 503 and nothing changes.

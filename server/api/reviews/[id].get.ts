@@ -1,4 +1,4 @@
-import { reviewParamsSchema } from '../../../shared/schemas/review'
+import { reviewParamsSchema } from '#shared/schemas/review'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireTeamRole(event, 'athlete')

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { formReviews } from '../../db/schema'
-import { reviewParamsSchema, reviewPatchSchema } from '../../../shared/schemas/review'
+import { reviewParamsSchema, reviewPatchSchema } from '#shared/schemas/review'
 
 /** The coach links a library exercise (its cues open beside the clip), or unlinks it with null. */
 export default defineEventHandler(async (event) => {
@@ -14,7 +14,7 @@ export default defineEventHandler(async (event) => {
       await findTeamExercise(db, caller, input.exerciseId)
     }
     catch {
-      rejectField('exerciseId', 'No such exercise in your library')
+      refuseField('exerciseId', 'No such exercise in your library')
     }
   }
   const [updated] = await db.update(formReviews).set({ exerciseId: input.exerciseId })

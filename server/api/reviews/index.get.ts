@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray, type SQL } from 'drizzle-orm'
 import { formReviews, mediaObjects, squadMembers, users } from '../../db/schema'
-import { reviewListQuerySchema, type ReviewSummary } from '../../../shared/schemas/review'
+import { reviewListQuerySchema, type ReviewSummary } from '#shared/schemas/review'
 
 /** Coaches: the team's review queue, newest first (optionally one squad). Athletes: their own reviews. */
 export default defineEventHandler(async (event) => {

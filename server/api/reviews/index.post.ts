@@ -1,17 +1,16 @@
 import { and, eq } from 'drizzle-orm'
 import { assignments, formReviews } from '../../db/schema'
-import { REVIEW_LIMITS, reviewCreateSchema } from '../../../shared/schemas/review'
+import { REVIEW_LIMITS, reviewCreateSchema } from '#shared/schemas/review'
 
 /** The athlete confirms their uploaded clip and sends it for review, with an optional question. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
-  if (caller.role !== 'athlete') throw createError({ statusCode: 403, statusMessage: 'Athletes only', message: 'Only athletes send clips for review' })
+  const caller = await requireAthlete(event)
   const input = await readBodyWith(event, reviewCreateSchema)
   const db = await useDb()
   if (input.assignmentId) {
     const [own] = await db.select({ id: assignments.id }).from(assignments)
       .where(and(eq(assignments.id, input.assignmentId), eq(assignments.teamId, caller.teamId), eq(assignments.athleteId, caller.userId))).limit(1)
-    if (!own) rejectField('assignmentId', 'No such session of yours')
+    if (!own) refuseField('assignmentId', 'No such session of yours')
   }
   const clip = await confirmReviewClip(db, caller.teamId, caller.userId, input.key, 'key', REVIEW_LIMITS.clipSeconds)
   const [review] = await db.insert(formReviews).values({

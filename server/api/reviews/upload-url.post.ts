@@ -1,10 +1,9 @@
 import { mediaObjects } from '../../db/schema'
-import { reviewUploadRequestSchema } from '../../../shared/schemas/review'
+import { reviewUploadRequestSchema } from '#shared/schemas/review'
 
 /** A presigned PUT for an athlete's own review clip, under their own prefix; type and size are signed. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
-  if (caller.role !== 'athlete') throw createError({ statusCode: 403, statusMessage: 'Athletes only', message: 'Only athletes send clips for review' })
+  const caller = await requireAthlete(event)
   const input = await readBodyWith(event, reviewUploadRequestSchema)
   await assertStorageReachable()
   const db = await useDb()

@@ -1,4 +1,4 @@
-import { idParamsSchema } from '../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 
 /** One routine with the exercises it uses, for the builder and the print card. */
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { and, eq, sql } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
-import { routineUpdateSchema } from '../../../shared/schemas/routine'
+import { idParamsSchema } from '#shared/schemas/common'
+import { routineUpdateSchema } from '#shared/schemas/routine'
 import { routines } from '../../db/schema'
 
 /** Saves the whole routine if nobody saved since `version` was read; a stale save is a 409. */
@@ -25,12 +25,7 @@ export default defineEventHandler(async (event) => {
     const [latest] = await db.select({ version: routines.version, updatedAt: routines.updatedAt }).from(routines)
       .where(and(eq(routines.id, id), eq(routines.teamId, caller.teamId))).limit(1)
     if (!latest) notFound('No such routine')
-    throw createError({
-      statusCode: 409,
-      statusMessage: 'Conflict',
-      message: 'Someone saved this routine after you opened it',
-      data: { currentVersion: latest.version, updatedAt: latest.updatedAt, fields: { version: 'This routine changed since you opened it' } },
-    })
+    refuse(409, 'Someone saved this routine after you opened it', { version: 'This routine changed since you opened it' }, { currentVersion: latest.version, updatedAt: latest.updatedAt })
   }
   return { id: saved.id, version: saved.version, updatedAt: saved.updatedAt }
 })

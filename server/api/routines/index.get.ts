@@ -1,6 +1,6 @@
 import { and, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm'
-import { routineListQuerySchema } from '../../../shared/schemas/routine'
-import { buildTimeline } from '../../../shared/utils/timeline'
+import { routineListQuerySchema } from '#shared/schemas/routine'
+import { buildTimeline } from '#shared/utils/timeline'
 import { routines } from '../../db/schema'
 
 /** The team's routines, newest edit first, with their totals for the list. */

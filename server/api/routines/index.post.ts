@@ -1,4 +1,4 @@
-import { routineInputSchema } from '../../../shared/schemas/routine'
+import { routineInputSchema } from '#shared/schemas/routine'
 import { routines } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { and, asc, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 import { entryLogs } from '../../db/schema'
 
 /** One session with its entries: the athlete's own, or any of the team's for a coach. */

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 import { squads } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { squadPatchSchema } from '../../../shared/schemas/auth'
-import { idParamsSchema } from '../../../shared/schemas/common'
+import { squadPatchSchema } from '#shared/schemas/auth'
+import { idParamsSchema } from '#shared/schemas/common'
 import { squads } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

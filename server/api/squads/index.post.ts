@@ -1,4 +1,4 @@
-import { squadSchema } from '../../../shared/schemas/auth'
+import { squadSchema } from '#shared/schemas/auth'
 import { squads } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { emergencyNumberSchema } from '../../../shared/schemas/safety'
+import { emergencyNumberSchema } from '#shared/schemas/safety'
 import { teams } from '../../db/schema'
 
 /** The emergency number the urgent-help guidance names; a team setting, so only the head coach sets it. */

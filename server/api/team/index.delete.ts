@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { deleteTeamSchema } from '../../../shared/schemas/team'
+import { deleteTeamSchema } from '#shared/schemas/team'
 import { assignments, mediaObjects, teams } from '../../db/schema'
 
 /** Deletes the team with all its data, once the head coach has typed its name. */
@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const caller = await requireHeadCoach(event)
   const input = await readBodyWith(event, deleteTeamSchema)
   if (input.confirmName !== caller.teamName) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'confirmName: Type the team\'s name exactly as shown', data: { fields: { confirmName: 'Type the team\'s name exactly as shown' } } })
+    refuseField('confirmName', 'Type the team\'s name exactly as shown')
   }
   const db = await useDb()
   const media = await db.select({ key: mediaObjects.key }).from(mediaObjects).where(eq(mediaObjects.teamId, caller.teamId))

@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { teamSettingsSchema } from '../../../shared/schemas/team'
+import { teamSettingsSchema } from '#shared/schemas/team'
 import { teams } from '../../db/schema'
 
 /** Renames the team, sets its emergency number or time zone: the head coach only. */

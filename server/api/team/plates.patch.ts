@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { teams } from '../../db/schema'
-import { plateSettingSchema } from '../../../shared/schemas/block'
+import { plateSettingSchema } from '#shared/schemas/block'
 
 /** The smallest total load step the team's plates allow; block loads round to it. */
 export default defineEventHandler(async (event) => {

@@ -1,10 +1,10 @@
 import { and, asc, eq, gte, isNull, lte } from 'drizzle-orm'
 import ical, { ICalCalendarMethod } from 'ical-generator'
 import { assignments, calendarFeeds, memberships, teams, users } from '../../db/schema'
-import { shownStatus } from '../../../shared/utils/assignment-status'
-import { routineCategoryLabel, statusLabels } from '../../../shared/utils/vocabulary'
-import { addDays, dayToUtcDate, isCalendarDay, todayIn } from '../../../shared/utils/dates'
-import { blockWeekLine } from '../../../shared/utils/block-week'
+import { shownStatus } from '#shared/utils/assignment-status'
+import { routineCategoryLabel, statusLabels } from '#shared/utils/vocabulary'
+import { addDays, dayToUtcDate, isCalendarDay, todayIn } from '#shared/utils/dates'
+import { blockWeekLine } from '#shared/utils/block-week'
 
 const FEED_PAST_DAYS = 60
 // Plan dates are kept within five years (shared/schemas/common.ts); older rows beyond it are left out.

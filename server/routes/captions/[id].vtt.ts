@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { buildWebVtt } from '../../../shared/utils/webvtt'
+import { buildWebVtt } from '#shared/utils/webvtt'
 
 const captionParams = z.object({
   id: z.string().regex(/^[1-9]\d{0,12}\.vtt$/, 'Use /captions/<exercise id>.vtt').transform(value => Number(value.replace(/\.vtt$/, ''))),

@@ -1,8 +1,8 @@
 import Papa from 'papaparse'
-import { exportLogsQuerySchema } from '../../../shared/schemas/insights'
-import { addDays, daysBetween, startOfWeek, todayIn } from '../../../shared/utils/dates'
-import { RATIO_LOOKBACK_DAYS, weeklyLoads } from '../../../shared/utils/insights'
-import { bodyAreaLabel } from '../../../shared/utils/vocabulary'
+import { exportLogsQuerySchema } from '#shared/schemas/insights'
+import { addDays, daysBetween, startOfWeek, todayIn } from '#shared/utils/dates'
+import { RATIO_LOOKBACK_DAYS, weeklyLoads } from '#shared/utils/insights'
+import { bodyAreaLabel } from '#shared/utils/vocabulary'
 
 const MAX_RANGE_DAYS = 3 * 366
 
@@ -18,10 +18,10 @@ export default defineEventHandler(async (event) => {
   const to = query.to ?? todayIn(caller.timezone)
   const from = query.from ?? addDays(to, -89)
   if (daysBetween(from, to) < 0) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'from: The start date must be on or before the end date', data: { fields: { from: 'The start date must be on or before the end date' } } })
+    refuseField('from', 'The start date must be on or before the end date')
   }
   if (daysBetween(from, to) >= MAX_RANGE_DAYS) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'from: Export at most three years at a time', data: { fields: { from: 'Export at most three years at a time' } } })
+    refuseField('from', 'Export at most three years at a time')
   }
   const db = await useDb()
   const athleteId = coach ? query.athleteId : caller.userId

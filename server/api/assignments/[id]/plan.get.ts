@@ -1,12 +1,12 @@
 import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { planSession } from '../../../../shared/utils/session-plan'
-import { isUnder18 } from '../../../../shared/utils/age'
+import { idParamsSchema } from '#shared/schemas/common'
+import { planSession } from '#shared/utils/session-plan'
+import { isUnder18 } from '#shared/utils/age'
 import { exercises, sessionLogs, teams } from '../../../db/schema'
 
 /** The assigned athlete's own session plan: segments with their paces and loads, and the cautions. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const db = await useDb()
   const assignment = await findOwnAssignment(db, caller, id)

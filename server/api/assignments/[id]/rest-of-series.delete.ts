@@ -1,7 +1,7 @@
 import { and, eq, gte, notExists } from 'drizzle-orm'
 import { assignments, sessionLogs } from '../../../db/schema'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { restOfSeriesQuerySchema } from '../../../../shared/schemas/planner'
+import { idParamsSchema } from '#shared/schemas/common'
+import { restOfSeriesQuerySchema } from '#shared/schemas/planner'
 
 /**
  * Removes this assignment and the later ones of its series: for this athlete (`?who=athlete`, the default)
@@ -15,7 +15,7 @@ export default defineEventHandler(async (event) => {
   const [assignment] = await db.select().from(assignments).where(and(eq(assignments.id, id), eq(assignments.teamId, caller.teamId))).limit(1)
   if (!assignment) notFound('No such assignment')
   if (!assignment.seriesId) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'id: This assignment is not part of a weekly series', data: { fields: { id: 'This assignment is not part of a weekly series' } } })
+    refuseField('id', 'This assignment is not part of a weekly series')
   }
   const removed = await db.transaction(async (tx) => {
     const removed = await tx.delete(assignments).where(and(

@@ -1,5 +1,5 @@
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { injuryNoteSchema } from '../../../../shared/schemas/profile'
+import { idParamsSchema } from '#shared/schemas/common'
+import { injuryNoteSchema } from '#shared/schemas/profile'
 
 /** A coach records an injury note for one of the team's athletes. */
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { logbookQuerySchema } from '../../../../shared/schemas/session'
+import { idParamsSchema } from '#shared/schemas/common'
+import { logbookQuerySchema } from '#shared/schemas/session'
 
 /** A coach reads one of the team's athletes' logs. */
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { idParamsSchema } from '../../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)

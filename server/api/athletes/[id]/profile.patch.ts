@@ -1,5 +1,5 @@
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { profilePatchSchema } from '../../../../shared/schemas/profile'
+import { idParamsSchema } from '#shared/schemas/common'
+import { profilePatchSchema } from '#shared/schemas/profile'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)

@@ -1,5 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm'
-import { passwordResetSchema, tokenParamsSchema } from '../../../../shared/schemas/auth'
+import { passwordResetSchema, tokenParamsSchema } from '#shared/schemas/auth'
 import { passwordResets, users } from '../../../db/schema'
 
 export default defineEventHandler(async (event) => {
@@ -9,13 +9,13 @@ export default defineEventHandler(async (event) => {
   const [reset] = await db.select().from(passwordResets).where(eq(passwordResets.tokenHash, hashToken(token))).limit(1)
   if (!reset) notFound('This reset link is not valid')
   if (reset.usedAt || reset.expiresAt.getTime() < Date.now()) {
-    throw createError({ statusCode: 410, statusMessage: 'Gone', message: 'This reset link has expired or was already used; ask for a new one' })
+    refuse(410, 'This reset link has expired or was already used; ask for a new one')
   }
   const passwordHash = await hashPassword(password)
   await db.transaction(async (tx) => {
     const used = await tx.update(passwordResets).set({ usedAt: new Date() })
       .where(and(eq(passwordResets.id, reset.id), isNull(passwordResets.usedAt))).returning({ id: passwordResets.id })
-    if (used.length === 0) throw createError({ statusCode: 410, statusMessage: 'Gone', message: 'This reset link was already used' })
+    if (used.length === 0) refuse(410, 'This reset link was already used')
     // Using one link spends every other outstanding link of this person.
     await tx.update(passwordResets).set({ usedAt: new Date() })
       .where(and(eq(passwordResets.userId, reset.userId), isNull(passwordResets.usedAt)))

@@ -1,8 +1,8 @@
 import { and, eq } from 'drizzle-orm'
 import { blocks } from '../../../db/schema'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { todayIn } from '../../../../shared/utils/dates'
-import { ruleProblem } from '../../../../shared/utils/progression'
+import { idParamsSchema } from '#shared/schemas/common'
+import { todayIn } from '#shared/utils/dates'
+import { ruleProblem } from '#shared/utils/progression'
 
 /**
  * Plans the block: every session with its own week's snapshot, in one transaction, and one notice
@@ -18,18 +18,18 @@ export default defineEventHandler(async (event) => {
   const replanned = block.plannedAt !== null
   const fromWeek = replanned ? firstFutureWeek(block.startDate, block.weeks, todayIn(caller.timezone)) : 1
   if (fromWeek > block.weeks) {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'Every week of this block has started; there are no weeks ahead to plan again' })
+    refuse(409, 'Every week of this block has started; there are no weeks ahead to plan again')
   }
-  if (!loaded.routines.length) badField('routines', 'Add at least one routine')
+  if (!loaded.routines.length) refuseField('routines', 'Add at least one routine')
   const athletes = await blockAthletes(db, caller.teamId, loaded.targets)
-  if (!athletes.length) badField('athleteIds', 'This block has no athletes (its squads are empty)')
+  if (!athletes.length) refuseField('athleteIds', 'This block has no athletes (its squads are empty)')
 
   const fieldOf = (routineId: number) => `routines.${loaded.routines.findIndex(slot => slot.routineId === routineId)}.routineId`
   const routinesById = await slotRoutines(db, caller.teamId, loaded.routines.map(slot => slot.routineId), fieldOf)
   // The routines may have changed since the block was saved: check the rules against them again.
   loaded.routines.forEach((slot, index) => slot.rules.forEach((rule, ruleIndex) => {
     const problem = ruleProblem(routinesById.get(slot.routineId)!.steps, rule, block.weeks)
-    if (problem) badField(`routines.${index}.rules.${ruleIndex}`, `${routinesById.get(slot.routineId)!.title}: ${problem}`)
+    if (problem) refuseField(`routines.${index}.rules.${ruleIndex}`, `${routinesById.get(slot.routineId)!.title}: ${problem}`)
   }))
   const weeks = computeBlockWeeks(block, slotsOf(loaded), routinesById, overridesOf(loaded), await teamPlateKg(db, caller.teamId))
   assertPlanSize(athletes.length, weeks.filter(week => week.week >= fromWeek).reduce((sum, week) => sum + week.cells.length, 0))

@@ -1,9 +1,9 @@
 import { and, eq, inArray, isNotNull } from 'drizzle-orm'
 import { assignments, sessionLogs, squadMembers, squads, users } from '../../../db/schema'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { todayIn } from '../../../../shared/utils/dates'
-import { keyNumbers, weekOfBlock } from '../../../../shared/utils/progression'
-import { blockProgressSeries, type ProgressRow } from '../../../../shared/utils/block-progress'
+import { idParamsSchema } from '#shared/schemas/common'
+import { todayIn } from '#shared/utils/dates'
+import { keyNumbers, weekOfBlock } from '#shared/utils/progression'
+import { blockProgressSeries, type ProgressRow } from '#shared/utils/block-progress'
 
 /** Planned against done, week by week: for every athlete in the block, each of its squads, and everyone. */
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
-import { idParamsSchema } from '../../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 import { exercises } from '../../../db/schema'
 
 const archiveSchema = z.object({ archived: z.boolean({ error: 'archived is true or false' }).default(true) })

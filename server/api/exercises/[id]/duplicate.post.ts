@@ -1,6 +1,6 @@
 import { and, eq, sql } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { EXERCISE_LIMITS } from '../../../../shared/schemas/exercise'
+import { idParamsSchema } from '#shared/schemas/common'
+import { EXERCISE_LIMITS } from '#shared/schemas/exercise'
 import { clipCues, exercises, mediaObjects } from '../../../db/schema'
 import type { Database } from '../../../db/client'
 

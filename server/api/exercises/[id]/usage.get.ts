@@ -1,7 +1,7 @@
-import { and, asc, eq, isNull, sql } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { todayIn } from '../../../../shared/utils/dates'
-import { routineExercises, routines } from '../../../db/schema'
+import { and, asc, count, eq, gte, inArray, isNull, or, sql } from 'drizzle-orm'
+import { idParamsSchema } from '#shared/schemas/common'
+import { todayIn } from '#shared/utils/dates'
+import { assignments, routineExercises, routines, users } from '../../../db/schema'
 
 const UPCOMING_LIMIT = 100
 
@@ -20,26 +20,32 @@ export default defineEventHandler(async (event) => {
 
   const today = todayIn(caller.timezone)
   const routineIds = usedIn.map(routine => routine.id)
-  const inRoutines = routineIds.length ? sql`a.routine_id IN (${sql.join(routineIds.map(routineId => sql`${routineId}`), sql`, `)})` : sql`0`
-  const matches = sql`a.team_id = ${caller.teamId} AND a.date >= ${today} AND (
-      ${inRoutines}
-      OR EXISTS (SELECT 1 FROM json_each(a.snapshot, '$.exercises') e WHERE json_extract(e.value, '$.id') = ${id})
-      OR EXISTS (SELECT 1 FROM json_tree(a.snapshot, '$.steps') t WHERE t.key = 'exerciseId' AND t.value = ${id}))`
+  const matches = and(
+    eq(assignments.teamId, caller.teamId),
+    gte(assignments.date, today),
+    or(routineIds.length ? inArray(assignments.routineId, routineIds) : undefined, snapshotUsesExercise(id)),
+  )
   const [upcoming, [totals]] = await Promise.all([
-    db.all<{ id: number, date: string, status: string, routineId: number, title: string, athleteId: number, athleteName: string }>(sql`
-      SELECT a.id, a.date, a.status, a.routine_id AS routineId, json_extract(a.snapshot, '$.title') AS title,
-             a.athlete_id AS athleteId, u.name AS athleteName
-        FROM assignments a JOIN users u ON u.id = a.athlete_id
-       WHERE ${matches}
-       ORDER BY a.date, u.name, a.id
-       LIMIT ${UPCOMING_LIMIT}`),
-    db.all<{ total: number }>(sql`SELECT count(*) AS total FROM assignments a WHERE ${matches}`),
+    db.select({
+      id: assignments.id,
+      date: assignments.date,
+      status: assignments.status,
+      routineId: assignments.routineId,
+      title: sql<string>`json_extract(${assignments.snapshot}, '$.title')`,
+      athleteId: assignments.athleteId,
+      athleteName: users.name,
+    }).from(assignments)
+      .innerJoin(users, eq(users.id, assignments.athleteId))
+      .where(matches)
+      .orderBy(asc(assignments.date), asc(users.name), asc(assignments.id))
+      .limit(UPCOMING_LIMIT),
+    db.select({ total: count() }).from(assignments).where(matches),
   ])
 
   return {
     routines: usedIn,
-    assignments: upcoming.map(row => ({ ...row, id: Number(row.id), routineId: Number(row.routineId), athleteId: Number(row.athleteId) })),
-    assignmentTotal: Number(totals?.total ?? 0),
+    assignments: upcoming,
+    assignmentTotal: totals?.total ?? 0,
     since: today,
   }
 })

@@ -1,5 +1,5 @@
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { athleteInsightsQuerySchema } from '../../../../shared/schemas/insights'
+import { idParamsSchema } from '#shared/schemas/common'
+import { athleteInsightsQuerySchema } from '#shared/schemas/insights'
 
 // Coaches see any athlete of their team; an athlete sees only their own page. Anything else is a 404.
 export default defineEventHandler(async (event) => {

@@ -1,9 +1,9 @@
 import { and, asc, eq } from 'drizzle-orm'
 import { assignments, blocks } from '../../../db/schema'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { shownStatus } from '../../../../shared/utils/assignment-status'
-import { addDays, todayIn } from '../../../../shared/utils/dates'
-import { keyNumbers, weekOfBlock, type WeekKind } from '../../../../shared/utils/progression'
+import { idParamsSchema } from '#shared/schemas/common'
+import { shownStatus } from '#shared/utils/assignment-status'
+import { addDays, todayIn } from '#shared/utils/dates'
+import { keyNumbers, weekOfBlock, type WeekKind } from '#shared/utils/progression'
 
 /** The caller's own view of a block: every week, its sessions, what changed and what was done. 404 without sessions in it. */
 export default defineEventHandler(async (event) => {

@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import { assignments, blocks } from '../../../db/schema'
-import { todayIn } from '../../../../shared/utils/dates'
-import { weekOfBlock } from '../../../../shared/utils/progression'
+import { todayIn } from '#shared/utils/dates'
+import { weekOfBlock } from '#shared/utils/progression'
 
 /** The blocks the caller has sessions in, with the week they are in now. */
 export default defineEventHandler(async (event) => {

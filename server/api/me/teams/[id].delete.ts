@@ -1,4 +1,4 @@
-import { idParamsSchema } from '../../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 
 /** Leaves one of the caller's teams. The last head coach hands the team over (or deletes it) first. */
 export default defineEventHandler(async (event) => {
@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const team = mine.find(row => row.id === id)
   if (!team) notFound('You are not in that team')
   if (team.role === 'head_coach' && await headCoachCount(db, id, caller.userId) === 0) {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'You are this team\'s only head coach: make someone else head coach, or delete the team' })
+    refuse(409, 'You are this team\'s only head coach: make someone else head coach, or delete the team')
   }
   await endMembership(db, id, caller.userId, { anonymise: false })
   const next = mine.find(row => row.id !== id)

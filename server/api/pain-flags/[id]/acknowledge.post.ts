@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { acknowledgePainFlagSchema } from '../../../../shared/schemas/insights'
+import { idParamsSchema } from '#shared/schemas/common'
+import { acknowledgePainFlagSchema } from '#shared/schemas/insights'
 import { painFlags, users } from '../../../db/schema'
 
 /** Marks a flag as seen, with an optional reply the athlete reads on their progress page. Repeating it updates the reply. */

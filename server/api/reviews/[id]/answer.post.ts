@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { formReviews, users } from '../../../db/schema'
-import { REVIEW_LIMITS, reviewAnswerSchema, reviewParamsSchema } from '../../../../shared/schemas/review'
+import { REVIEW_LIMITS, reviewAnswerSchema, reviewParamsSchema } from '#shared/schemas/review'
 
 /** Marks the review answered (with the coach's reply clip, if one was uploaded) and e-mails the athlete. */
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { mediaObjects } from '../../../db/schema'
-import { reviewParamsSchema, reviewUploadRequestSchema } from '../../../../shared/schemas/review'
+import { reviewParamsSchema, reviewUploadRequestSchema } from '#shared/schemas/review'
 
 /** A presigned PUT for the coach's reply clip, stored under the athlete's review prefix. */
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { routineArchiveSchema } from '../../../../shared/schemas/routine'
+import { idParamsSchema } from '#shared/schemas/common'
+import { routineArchiveSchema } from '#shared/schemas/routine'
 import { routines } from '../../../db/schema'
 
 /** Archiving hides a routine from the list; assignments keep their snapshots. `{ archived: false }` restores it. */

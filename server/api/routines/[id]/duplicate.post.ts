@@ -1,5 +1,5 @@
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { routineDuplicateSchema } from '../../../../shared/schemas/routine'
+import { idParamsSchema } from '#shared/schemas/common'
+import { routineDuplicateSchema } from '#shared/schemas/routine'
 import { routines } from '../../../db/schema'
 
 /** A new routine with the same steps, starting at version 1 (templates are copied this way too). */

@@ -1,9 +1,9 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { previewQuerySchema } from '../../../../shared/schemas/routine'
-import { generalCautions, matchCautions } from '../../../../shared/utils/cautions'
-import { buildTimeline } from '../../../../shared/utils/timeline'
-import type { RoutinePreview } from '../../../../shared/types/routine'
+import { idParamsSchema } from '#shared/schemas/common'
+import { previewQuerySchema } from '#shared/schemas/routine'
+import { generalCautions, matchCautions } from '#shared/utils/cautions'
+import { buildTimeline } from '#shared/utils/timeline'
+import type { RoutinePreview } from '#shared/types/routine'
 import { memberships } from '../../../db/schema'
 
 /** The routine as one athlete would get it: their paces and loads filled in, their cautions first. */

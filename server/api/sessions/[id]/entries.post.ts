@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { entrySchema } from '../../../../shared/schemas/session'
+import { idParamsSchema } from '#shared/schemas/common'
+import { entrySchema } from '#shared/schemas/session'
 import { assignments, entryLogs, exercises } from '../../../db/schema'
 
 /**
@@ -9,7 +9,7 @@ import { assignments, entryLogs, exercises } from '../../../db/schema'
  * assignment's status is worked out again; after the window, 409.
  */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const body = await readBodyWith(event, entrySchema)
   const db = await useDb()
@@ -26,9 +26,9 @@ export default defineEventHandler(async (event) => {
   const [assignment] = await db.select({ snapshot: assignments.snapshot }).from(assignments)
     .where(and(eq(assignments.id, session.assignmentId), eq(assignments.teamId, caller.teamId))).limit(1)
   if (!assignment) notFound('No such session')
-  const segment = loggableKeys(assignment.snapshot).find(item => item.key === entryKey(body))
+  const segment = loggableKeys(assignment.snapshot).find(item => item.key === segmentKey(body))
   if (!segment) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'stepId: This routine has no such set or interval to log', data: { fields: { stepId: 'This routine has no such set or interval to log' } } })
+    refuseField('stepId', 'This routine has no such set or interval to log')
   }
 
   // The snapshot may name an exercise the library has since deleted; the entry then keeps no link.

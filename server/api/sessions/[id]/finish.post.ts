@@ -1,13 +1,13 @@
 import { and, eq, isNotNull, isNull, ne } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { finishSessionSchema, MAX_SECONDS, PAIN_FLAG_THRESHOLD } from '../../../../shared/schemas/session'
-import { sessionLoad } from '../../../../shared/utils/load'
-import { needsUrgentGuidance, urgentGuidance } from '../../../../shared/utils/urgent-guidance'
+import { idParamsSchema } from '#shared/schemas/common'
+import { finishSessionSchema, MAX_SECONDS, PAIN_FLAG_THRESHOLD } from '#shared/schemas/session'
+import { sessionLoad } from '#shared/utils/load'
+import { needsUrgentGuidance, urgentGuidance } from '#shared/utils/urgent-guidance'
 import { assignments, entryLogs, injuryNotes, painFlags, sessionLogs, teams } from '../../../db/schema'
 
 /** Ends a session: effort, pain and note; stores the session load, flags pain, marks the assignment. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const body = await readBodyWith(event, finishSessionSchema)
   const db = await useDb()
@@ -41,7 +41,7 @@ export default defineEventHandler(async (event) => {
     db.select({ area: sessionLogs.painArea }).from(sessionLogs)
       .where(and(eq(sessionLogs.athleteId, caller.userId), eq(sessionLogs.teamId, caller.teamId), ne(sessionLogs.id, session.id), isNotNull(sessionLogs.painArea))),
   ])
-  const logged = new Set(entries.map(entryKey))
+  const logged = new Set(entries.map(entry => segmentKey(entry)))
   const expected = loggableKeys(assignment.snapshot)
   const status = expected.every(segment => logged.has(segment.key)) ? 'done' : 'partial'
 

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { squadMembersSchema } from '../../../../shared/schemas/auth'
-import { idParamsSchema } from '../../../../shared/schemas/common'
+import { squadMembersSchema } from '#shared/schemas/auth'
+import { idParamsSchema } from '#shared/schemas/common'
 import { squadMembers } from '../../../db/schema'
 
 /** Replaces a squad's athletes; athletes already in it keep their original joining date. */

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../shared/schemas/common'
-import { removeMemberQuerySchema } from '../../../../shared/schemas/team'
+import { idParamsSchema } from '#shared/schemas/common'
+import { removeMemberQuerySchema } from '#shared/schemas/team'
 import { memberships } from '../../../db/schema'
 
 /**
@@ -16,13 +16,13 @@ export default defineEventHandler(async (event) => {
     .where(and(eq(memberships.teamId, caller.teamId), eq(memberships.userId, id))).limit(1)
   if (!member) notFound('No such member')
   if (member.role !== 'athlete' && caller.role !== 'head_coach') {
-    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: 'Only the head coach can do this' })
+    refuse(403, 'Only the head coach can do this')
   }
   if (id === caller.userId) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'id: To leave the team, use "Leave this team"', data: { fields: { id: 'To leave the team, use "Leave this team"' } } })
+    refuseField('id', 'To leave the team, use "Leave this team"')
   }
   if (member.role === 'head_coach' && await headCoachCount(db, caller.teamId, id) === 0) {
-    throw createError({ statusCode: 409, statusMessage: 'Conflict', message: 'The team needs a head coach' })
+    refuse(409, 'The team needs a head coach')
   }
   await endMembership(db, caller.teamId, id, { anonymise })
   setResponseStatus(event, 204)

@@ -1,7 +1,7 @@
 import { and, desc, eq } from 'drizzle-orm'
 import { assignments, assignmentSeries, routines } from '../../../../db/schema'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { seriesDates, todayIn } from '../../../../../shared/utils/dates'
+import { idParamsSchema } from '#shared/schemas/common'
+import { seriesDates, todayIn } from '#shared/utils/dates'
 
 /**
  * Gives athletes who joined the series' squad later (and have no assignment in it) the series'
@@ -13,7 +13,7 @@ export default defineEventHandler(async (event) => {
   const db = await useDb()
   const [series] = await db.select().from(assignmentSeries).where(and(eq(assignmentSeries.id, id), eq(assignmentSeries.teamId, caller.teamId))).limit(1)
   if (!series) notFound('No such series')
-  if (!series.squadId) tooMany('id', 'This series was assigned to athletes, not to a squad')
+  if (!series.squadId) refuseField('id', 'This series was assigned to athletes, not to a squad')
 
   const [members, existing] = await Promise.all([
     squadAthletes(db, caller.teamId, series.squadId),
@@ -39,7 +39,7 @@ export default defineEventHandler(async (event) => {
   }
   else {
     const [current] = await db.select({ archivedAt: routines.archivedAt }).from(routines).where(eq(routines.id, series.routineId)).limit(1)
-    if (current?.archivedAt) tooMany('id', 'This series\' routine is archived; restore it first')
+    if (current?.archivedAt) refuseField('id', 'This series\' routine is archived; restore it first')
   }
 
   const ids = await db.transaction(tx => insertBatch(tx, {

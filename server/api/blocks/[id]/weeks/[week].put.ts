@@ -1,6 +1,6 @@
-import { blockWeekParamsSchema, overrideInputSchema } from '../../../../../shared/schemas/block'
-import { addDays, todayIn } from '../../../../../shared/utils/dates'
-import { baseValue, findStepById } from '../../../../../shared/utils/progression'
+import { blockWeekParamsSchema, overrideInputSchema } from '#shared/schemas/block'
+import { addDays, todayIn } from '#shared/utils/dates'
+import { baseValue, findStepById } from '#shared/utils/progression'
 
 /** Sets one routine's numbers for one week by hand (an empty list goes back to the rules). */
 export default defineEventHandler(async (event) => {
@@ -9,15 +9,15 @@ export default defineEventHandler(async (event) => {
   const input = await readBodyWith(event, overrideInputSchema)
   const db = await useDb()
   const loaded = await loadBlock(db, caller.teamId, id)
-  if (week > loaded.block.weeks) badField('week', `The block has ${loaded.block.weeks} weeks`)
+  if (week > loaded.block.weeks) refuseField('week', `The block has ${loaded.block.weeks} weeks`)
   const today = todayIn(caller.timezone)
-  if (addDays(loaded.block.startDate, week * 7 - 1) < today) badField('week', 'This week is over; its sessions stay as they were')
+  if (addDays(loaded.block.startDate, week * 7 - 1) < today) refuseField('week', 'This week is over; its sessions stay as they were')
   const slot = loaded.routines.find(item => item.id === input.blockRoutineId)
-  if (!slot) badField('blockRoutineId', 'This routine slot is not part of the block')
+  if (!slot) refuseField('blockRoutineId', 'This routine slot is not part of the block')
   const [routine] = (await slotRoutines(db, caller.teamId, [slot.routineId], () => 'blockRoutineId')).values()
   input.values.forEach((value, index) => {
     const step = findStepById(routine!.steps, value.stepId)
-    if (!step || baseValue(step, value.field) === undefined) badField(`values.${index}.field`, 'This step has no such number')
+    if (!step || baseValue(step, value.field) === undefined) refuseField(`values.${index}.field`, 'This step has no such number')
   })
   await saveWeekOverride(db, id, slot.id, week, input.values)
   const updated = loaded.block.plannedAt ? await applyWeekToSessions(db, caller.teamId, id, slot.id, week, today) : 0

@@ -1,11 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { clipConfirmSchema } from '../../../../../shared/schemas/exercise'
+import { idParamsSchema } from '#shared/schemas/common'
+import { clipConfirmSchema } from '#shared/schemas/exercise'
 import { exercises, mediaObjects } from '../../../../db/schema'
-
-function rejectKey(message: string): never {
-  throw createError({ statusCode: 400, statusMessage: 'Invalid upload', message: `key: ${message}`, data: { fields: { key: message } } })
-}
 
 /**
  * Marks an upload ready once the stored object proves to be what was announced: HEAD for type and
@@ -18,23 +14,23 @@ export default defineEventHandler(async (event) => {
   const db = await useDb()
   const { exercise } = await findTeamExercise(db, caller, id)
 
-  if (!key.startsWith(exercisePrefix(caller.teamId, id)) || key.includes('..')) rejectKey('This key is not in this exercise\'s storage')
+  if (!key.startsWith(exercisePrefix(caller.teamId, id)) || key.includes('..')) refuseField('key', 'This key is not in this exercise\'s storage')
   const [pending] = await db.select().from(mediaObjects)
     .where(and(eq(mediaObjects.key, key), eq(mediaObjects.teamId, caller.teamId), eq(mediaObjects.exerciseId, id)))
     .limit(1)
-  if (!pending) rejectKey('No upload was started with this key')
-  if (pending.status === 'ready') rejectKey('This upload is already confirmed')
-  if (pending.status === 'deleted') rejectKey('This upload was removed; start a new one')
+  if (!pending) refuseField('key', 'No upload was started with this key')
+  if (pending.status === 'ready') refuseField('key', 'This upload is already confirmed')
+  if (pending.status === 'deleted') refuseField('key', 'This upload was removed; start a new one')
 
   const stored = await headObject(key)
-  if (!stored) rejectKey('Nothing has been uploaded with this key yet')
+  if (!stored) refuseField('key', 'Nothing has been uploaded with this key yet')
 
   const problem = await uploadProblem(key, stored, pending)
   if (problem) {
     // Nothing half-written: the object goes, and the record says so, before answering.
     await deleteObject(key)
     await db.update(mediaObjects).set({ status: 'deleted' }).where(eq(mediaObjects.id, pending.id))
-    rejectKey(`${problem}; it was discarded`)
+    refuseField('key', `${problem}; it was discarded`)
   }
 
   // A clip's length and picture size come from its container, read in place with ranged GETs.

@@ -1,6 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { clipDeleteQuerySchema } from '../../../../../shared/schemas/exercise'
+import { idParamsSchema } from '#shared/schemas/common'
+import { clipDeleteQuerySchema } from '#shared/schemas/exercise'
 import { exercises, mediaObjects } from '../../../../db/schema'
 
 /** Removes the clip (and its poster, unless only one of them is named): storage first, then the record. */

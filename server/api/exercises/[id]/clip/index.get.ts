@@ -1,6 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import { z } from 'zod'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 import { mediaObjects } from '../../../../db/schema'
 
 const playbackQuerySchema = z.object({ redirect: z.enum(['1', 'true', '0', 'false'], { error: 'redirect is 1 or 0' }).optional() })

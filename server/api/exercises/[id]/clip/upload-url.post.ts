@@ -1,5 +1,5 @@
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { clipUploadRequestSchema } from '../../../../../shared/schemas/exercise'
+import { idParamsSchema } from '#shared/schemas/common'
+import { clipUploadRequestSchema } from '#shared/schemas/exercise'
 import { mediaObjects } from '../../../../db/schema'
 
 /**

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { clipCues } from '../../../../db/schema'
-import { clipCueParamsSchema } from '../../../../../shared/schemas/clip-cue'
+import { clipCueParamsSchema } from '#shared/schemas/clip-cue'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { clipCues } from '../../../../db/schema'
-import { clipCueParamsSchema, clipCuePatchSchema } from '../../../../../shared/schemas/clip-cue'
+import { clipCueParamsSchema, clipCuePatchSchema } from '#shared/schemas/clip-cue'
 
 /** Moves a cue (start and end) or rewrites its text; fields not sent stay as they are. */
 export default defineEventHandler(async (event) => {

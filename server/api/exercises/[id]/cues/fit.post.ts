@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { clipCues } from '../../../../db/schema'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { clipCueFitSchema } from '../../../../../shared/schemas/clip-cue'
+import { idParamsSchema } from '#shared/schemas/common'
+import { clipCueFitSchema } from '#shared/schemas/clip-cue'
 
 /**
  * Fits the cues to a replaced, shorter clip: `scale` stretches every time by new length / old length;
@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
   const duration = clip.durationSeconds
   if (duration === null) {
     const message = 'The clip\'s length is not known, so the cues cannot be fitted to it'
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `mode: ${message}`, data: { fields: { mode: message } } })
+    refuseField('mode', message)
   }
   const rows = await listClipCues(db, caller.teamId, id)
   const round = (value: number) => Math.round(value * 1000) / 1000

@@ -1,4 +1,4 @@
-import { idParamsSchema } from '../../../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 
 /** The cues pinned to moments of the exercise's clip, in time order. */
 export default defineEventHandler(async (event) => {

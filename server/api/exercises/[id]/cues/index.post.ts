@@ -1,6 +1,6 @@
 import { clipCues } from '../../../../db/schema'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
-import { CLIP_CUE_LIMITS, clipCueInputSchema } from '../../../../../shared/schemas/clip-cue'
+import { idParamsSchema } from '#shared/schemas/common'
+import { CLIP_CUE_LIMITS, clipCueInputSchema } from '#shared/schemas/clip-cue'
 
 /** Pins a cue to a moment of the clip (and optionally until an end). */
 export default defineEventHandler(async (event) => {
@@ -14,7 +14,7 @@ export default defineEventHandler(async (event) => {
   const created = await db.transaction(async (tx) => {
     if (await countClipCues(tx, caller.teamId, id) >= CLIP_CUE_LIMITS.perClip) {
       const message = `A clip has at most ${CLIP_CUE_LIMITS.perClip} cues; remove one first`
-      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `cues: ${message}`, data: { fields: { cues: message } } })
+      refuseField('cues', message)
     }
     const [row] = await tx.insert(clipCues).values({ teamId: caller.teamId, exerciseId: id, ...input, createdById: caller.userId }).returning()
     return row!

@@ -1,5 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm'
-import { idParamsSchema } from '../../../../../shared/schemas/common'
+import { idParamsSchema } from '#shared/schemas/common'
 import { invites } from '../../../../db/schema'
 
 export default defineEventHandler(async (event) => {

@@ -1,0 +1,27 @@
+import type { InternalApi } from 'nitropack/types'
+
+/**
+ * The one place client code takes API answer types from. Each is what the route's handler returns
+ * (its typed view built in server/utils/), as the browser receives it (dates become strings), inferred
+ * by Nitro from the handler itself: change the server's view and the pages follow, or fail typecheck.
+ */
+export type ApiResponse<Route extends keyof InternalApi, Method extends keyof InternalApi[Route] = 'get' & keyof InternalApi[Route]> = InternalApi[Route][Method]
+
+export type TeamInsights = ApiResponse<'/api/insights/team'>
+export type TeamInsightsRow = TeamInsights['rows'][number]
+export type Compliance = TeamInsightsRow['compliance7']
+
+export type AthleteReport = NonNullable<ApiResponse<'/api/insights/athletes/:id'>>
+export type ReportWeek = AthleteReport['weeks'][number]
+export type ReportCalendarDay = AthleteReport['calendar'][number]
+
+export type PainFlagItem = ApiResponse<'/api/pain-flags'>[number]
+
+export type Logbook = ApiResponse<'/api/me/logbook'>
+export type LogSession = Logbook['sessions'][number]
+export type LogEntry = LogSession['entries'][number]
+export type MyAssignments = ApiResponse<'/api/me/assignments'>
+export type MyAssignment = MyAssignments['assignments'][number]
+export type ProfileView = ApiResponse<'/api/me/profile'>
+export type PacesView = ApiResponse<'/api/me/paces'>
+export type ClipPlayback = ApiResponse<'/api/exercises/:id/clip'>
