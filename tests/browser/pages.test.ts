@@ -17,6 +17,7 @@ type Who = 'nobody' | 'coach' | 'athlete'
 interface PageVisit { path: string, as: Who }
 
 const pages: PageVisit[] = [
+  { path: '/', as: 'nobody' },
   { path: '/login', as: 'nobody' },
   { path: '/register', as: 'nobody' },
   { path: '/reset', as: 'nobody' },
@@ -33,10 +34,14 @@ const pages: PageVisit[] = [
   { path: '/insights', as: 'coach' },
   { path: '/insights/athletes/{athleteId}', as: 'coach' },
   { path: '/team', as: 'coach' },
+  { path: '/blocks', as: 'coach' },
+  { path: '/blocks/new', as: 'coach' },
+  { path: '/reviews', as: 'coach' },
   { path: '/today', as: 'athlete' },
   { path: '/logbook', as: 'athlete' },
   { path: '/progress', as: 'athlete' },
   { path: '/profile', as: 'athlete' },
+  { path: '/reviews', as: 'athlete' },
   { path: '/session/{assignmentId}', as: 'athlete' },
   { path: '/session/routine/{otherRoutineId}', as: 'athlete' },
 ]

@@ -126,9 +126,9 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
       const bar = (await page.getByTestId('totals-bar').boundingBox())!
       expect(bar.y + bar.height).toBeLessThanOrEqual(viewports.phone.height + 1)
       expect(await page.getByTestId('totals-bar').textContent()).toMatch(/Total\s*40:00/)
-      const up = (await page.getByRole('button', { name: 'Move Cool-down up' }).boundingBox())!
+      const up = (await page.getByRole('button', { name: 'Move Easy finish up' }).boundingBox())!
       expect(Math.min(up.width, up.height)).toBeGreaterThanOrEqual(44)
-      expect(await page.getByRole('button', { name: 'Remove Cool-down' }).isVisible()).toBe(false)
+      expect(await page.getByRole('button', { name: 'Remove Easy finish' }).isVisible()).toBe(false)
     }
     await page.screenshot({ path: screenshotPath(`routine-builder-${size}`), fullPage: true })
 

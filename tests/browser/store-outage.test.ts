@@ -44,7 +44,8 @@ describe('the clip store goes down during an upload', () => {
     await stack.s3.stop()
     await page.goto(`${stack.url}/exercises/${exercise.id}`)
     await page.getByTestId('clip-file').setInputFiles(clipFile)
-    await page.getByText(/clip store cannot be reached/i).waitFor()
+    // The message carries the request's reference, as the server's log line does.
+    await page.getByText(/clip store cannot be reached.*\(reference [\w-]{8}\)/i).waitFor()
     const retry = page.getByRole('button', { name: 'Try the upload again' })
     await retry.waitFor()
     await page.screenshot({ path: screenshotPath('store-outage-phone'), fullPage: true })

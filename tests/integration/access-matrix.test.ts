@@ -34,6 +34,15 @@ interface Ids {
   entryId: number
   painFlagId: number
   feedToken: string
+  coachId: number
+  rivalTeamId: number
+  leaverId: number
+  blockId: number
+  blockRoutineId: number
+  blockStart: string
+  clipExerciseId: number
+  cueId: number
+  reviewId: number
 }
 
 interface Row {
@@ -128,7 +137,59 @@ const matrix: Record<string, Row> = {
   'server/api/team/invites/[id]/resend.post.ts': { method: 'POST', path: i => `/api/team/invites/${i.inviteId}/resend`, expect: [401, 403, 403, 200, 200, 404] },
   'server/api/team/invites/[id]/revoke.post.ts': { method: 'POST', path: i => `/api/team/invites/${i.inviteId}/revoke`, fresh: true, expect: [401, 403, 403, 204, 204, 404] },
   'server/routes/calendar/[token].ics.ts': { method: 'GET', path: i => `/calendar/${i.feedToken}.ics`, fresh: true, expect: signedOutOnly(200) },
+  'server/api/blocks/[id].get.ts': { method: 'GET', path: i => `/api/blocks/${i.blockId}`, expect: coachReadById },
+  'server/api/blocks/[id].put.ts': { method: 'PUT', path: i => `/api/blocks/${i.blockId}`, body: i => blockBody(i, true), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/blocks/[id]/plan.post.ts': { method: 'POST', path: i => `/api/blocks/${i.blockId}/plan`, fresh: true, expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/blocks/[id]/progress.get.ts': { method: 'GET', path: i => `/api/blocks/${i.blockId}/progress`, expect: coachReadById },
+  'server/api/blocks/[id]/weeks/[week].put.ts': { method: 'PUT', path: i => `/api/blocks/${i.blockId}/weeks/1`, body: i => ({ blockRoutineId: i.blockRoutineId, values: [] }), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/blocks/index.get.ts': { method: 'GET', path: () => '/api/blocks', expect: coachRead },
+  'server/api/blocks/index.post.ts': { method: 'POST', path: () => '/api/blocks', body: i => blockBody(i), expect: [401, 403, 403, 201, 201, 400] },
+  'server/api/blocks/preview.post.ts': { method: 'POST', path: () => '/api/blocks/preview', body: i => blockBody(i), expect: [401, 403, 403, 200, 200, 400] },
+  'server/api/coach/checklist.post.ts': { method: 'POST', path: () => '/api/coach/checklist', body: () => ({ dismissed: false }), expect: coachRead },
+  'server/api/coach/home.get.ts': { method: 'GET', path: () => '/api/coach/home', expect: coachRead },
+  'server/api/exercises/[id]/cues/[cueId].delete.ts': { method: 'DELETE', path: i => `/api/exercises/${i.clipExerciseId}/cues/${i.cueId}`, fresh: true, expect: [401, 403, 403, 204, 204, 404] },
+  'server/api/exercises/[id]/cues/[cueId].patch.ts': { method: 'PATCH', path: i => `/api/exercises/${i.clipExerciseId}/cues/${i.cueId}`, body: () => ({ text: 'Drive the knee up' }), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/exercises/[id]/cues/fit.post.ts': { method: 'POST', path: i => `/api/exercises/${i.clipExerciseId}/cues/fit`, body: () => ({ mode: 'clamp' }), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/exercises/[id]/cues/index.get.ts': { method: 'GET', path: i => `/api/exercises/${i.clipExerciseId}/cues`, expect: [401, 404, 404, 200, 200, 404] },
+  'server/api/exercises/[id]/cues/index.post.ts': { method: 'POST', path: i => `/api/exercises/${i.clipExerciseId}/cues`, body: () => ({ startSeconds: 1, endSeconds: 2, text: 'Land under the hip' }), expect: [401, 403, 403, 201, 201, 404] },
+  'server/api/health/live.get.ts': { method: 'GET', path: () => '/api/health/live', expect: signedOutOnly(200) },
+  'server/api/health/ready.get.ts': { method: 'GET', path: () => '/api/health/ready', expect: signedOutOnly(200) },
+  'server/api/me/blocks/[id].get.ts': { method: 'GET', path: i => `/api/me/blocks/${i.blockId}`, expect: [401, 200, 404, 404, 404, 404] },
+  'server/api/me/blocks/index.get.ts': { method: 'GET', path: () => '/api/me/blocks', expect: anyMember },
+  'server/api/me/pain-flag-emails.put.ts': { method: 'PUT', path: () => '/api/me/pain-flag-emails', body: () => ({ painFlagEmails: true }), expect: coachRead },
+  'server/api/me/team.post.ts': { method: 'POST', path: () => '/api/me/team', body: i => ({ teamId: i.rivalTeamId }), expect: [401, 404, 404, 404, 404, 200] },
+  'server/api/me/teams.get.ts': { method: 'GET', path: () => '/api/me/teams', expect: anyMember },
+  // Leaving a team one is not in is 404; the rival is their team's only head coach, so leaving it is refused.
+  'server/api/me/teams/[id].delete.ts': { method: 'DELETE', path: i => `/api/me/teams/${i.rivalTeamId}`, expect: [401, 404, 404, 404, 404, 409] },
+  'server/api/me/welcome.post.ts': { method: 'POST', path: () => '/api/me/welcome', body: () => ({ skip: true }), expect: athleteOwn },
+  'server/api/pain-flags/open-count.get.ts': { method: 'GET', path: () => '/api/pain-flags/open-count', expect: coachRead },
+  'server/api/reviews/[id].delete.ts': { method: 'DELETE', path: i => `/api/reviews/${i.reviewId}`, fresh: true, expect: [401, 204, 404, 403, 403, 404] },
+  'server/api/reviews/[id].get.ts': { method: 'GET', path: i => `/api/reviews/${i.reviewId}`, expect: [401, 200, 404, 200, 200, 404] },
+  'server/api/reviews/[id].patch.ts': { method: 'PATCH', path: i => `/api/reviews/${i.reviewId}`, body: () => ({ exerciseId: null }), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/reviews/[id]/answer.post.ts': { method: 'POST', path: i => `/api/reviews/${i.reviewId}/answer`, fresh: true, expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/reviews/[id]/comments.post.ts': { method: 'POST', path: i => `/api/reviews/${i.reviewId}/comments`, body: () => ({ atSeconds: 1, text: 'Keep the hips level' }), expect: [401, 403, 403, 201, 201, 404] },
+  'server/api/reviews/[id]/reply-url.post.ts': { method: 'POST', path: i => `/api/reviews/${i.reviewId}/reply-url`, body: () => ({ contentType: 'video/mp4', size: 1000 }), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/reviews/index.get.ts': { method: 'GET', path: () => '/api/reviews', expect: anyMember },
+  // Nothing was uploaded under the key, so the athlete's request is refused on the key.
+  'server/api/reviews/index.post.ts': { method: 'POST', path: () => '/api/reviews', body: () => ({ key: 'nothing-uploaded' }), expect: [401, 400, 400, 403, 403, 403] },
+  'server/api/reviews/upload-url.post.ts': { method: 'POST', path: () => '/api/reviews/upload-url', body: () => ({ contentType: 'video/mp4', size: 1000 }), expect: athleteOwn },
+  'server/api/team/emergency-number.put.ts': { method: 'PUT', path: () => '/api/team/emergency-number', body: () => ({ emergencyNumber: null }), expect: [401, 403, 403, 403, 200, 200] },
+  // The confirmation does not match, so no team is deleted: the callers who may try get 400.
+  'server/api/team/index.delete.ts': { method: 'DELETE', path: () => '/api/team', body: () => ({ confirmName: 'Not the team name' }), expect: [401, 403, 403, 403, 400, 400] },
+  'server/api/team/index.patch.ts': { method: 'PATCH', path: () => '/api/team', body: () => ({ timezone: 'UTC' }), expect: [401, 403, 403, 403, 200, 200] },
+  'server/api/team/members/[id].delete.ts': { method: 'DELETE', path: i => `/api/team/members/${i.leaverId}`, fresh: true, expect: [401, 403, 403, 204, 204, 404] },
+  'server/api/team/members/[id].patch.ts': { method: 'PATCH', path: i => `/api/team/members/${i.coachId}`, body: () => ({ role: 'coach' }), expect: [401, 403, 403, 403, 200, 404] },
+  'server/api/team/plates.get.ts': { method: 'GET', path: () => '/api/team/plates', expect: coachRead },
+  'server/api/team/plates.patch.ts': { method: 'PATCH', path: () => '/api/team/plates', body: () => ({ plateIncrementKg: 2.5 }), expect: coachRead },
+  'server/api/team/safety.get.ts': { method: 'GET', path: () => '/api/team/safety', expect: coachRead },
+  'server/api/team/starter-set.post.ts': { method: 'POST', path: () => '/api/team/starter-set', expect: coachRead },
+  'server/routes/captions/[id].vtt.ts': { method: 'GET', path: i => `/captions/${i.clipExerciseId}.vtt`, expect: [401, 404, 404, 200, 200, 404] },
   'server/routes/exports/logs.csv.get.ts': { method: 'GET', path: () => '/exports/logs.csv?kind=sessions', expect: anyMember },
+}
+
+/** A block as the coach's form sends it; with `slot`, the saved block's routine keeps its id. */
+function blockBody(ids: Ids, slot = false) {
+  return { name: 'Spring hills', startDate: ids.blockStart, weeks: 4, athleteIds: [ids.athleteId], routines: [{ ...(slot ? { id: ids.blockRoutineId } : {}), routineId: ids.routineId, weekday: 2 }] }
 }
 
 function sha256(text: string) {
@@ -202,7 +263,28 @@ describe('access matrix: on the built server', () => {
     const [flag] = await fixtures.rows<{ id: number }>('insert into pain_flags (team_id, athlete_id, session_id, pain, area, reason) values (?, ?, ?, 7, ?, ?) returning id', [teamId, athlete.userId, session!.id, 'knee', 'high_pain'])
     const feedToken = randomBytes(32).toString('base64url')
     await fixtures.rows('insert into calendar_feeds (team_id, user_id, token_hash) values (?, ?, ?)', [teamId, athlete.userId, sha256(feedToken)])
+    const [coach] = await fixtures.rows<{ id: number }>('select id from users where email = ?', [coachEmail])
+    // A member to remove: a row of their own, so removing them spoils no sign-in.
+    const [leaver] = await fixtures.rows<{ id: number }>('insert into users (email, name, password_hash) values (?, ?, ?) returning id', [uniqueEmail('leaver'), 'Idris Fenwick', 'not-a-hash'])
+    await fixtures.rows('insert into memberships (team_id, user_id, role) values (?, ?, ?)', [teamId, leaver!.id, 'athlete'])
+    // A block of the athlete's, with one planned session, so the athlete sees it.
+    const blockStart = today()
+    const [block] = await fixtures.rows<{ id: number }>('insert into blocks (team_id, name, start_date, weeks, created_by_id) values (?, ?, ?, 4, ?) returning id', [teamId, 'Spring hills', blockStart, head.userId])
+    const [slot] = await fixtures.rows<{ id: number }>('insert into block_routines (block_id, routine_id, weekday) values (?, ?, 2) returning id', [block!.id, routineId])
+    await fixtures.rows('insert into block_targets (block_id, athlete_id) values (?, ?)', [block!.id, athlete.userId])
+    const { id: blockAssignmentId } = await fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
+    await fixtures.rows('update assignments set block_id = ?, block_week = 1 where id = ?', [block!.id, blockAssignmentId])
+    // An exercise with a clip, and a cue on it.
+    const clipExercise = await fixtures.exercise(teamId, { name: `Hill bounds ${Math.random()}`, category: 'drill' })
+    const [clip] = await fixtures.rows<{ id: number }>('insert into media_objects (team_id, exercise_id, key, content_type, size, status, duration_seconds) values (?, ?, ?, ?, 1000, ?, 10) returning id', [teamId, clipExercise.id, `matrix/${Math.random()}.mp4`, 'video/mp4', 'ready'])
+    await fixtures.rows('update exercises set clip_id = ? where id = ?', [clip!.id, clipExercise.id])
+    const [cue] = await fixtures.rows<{ id: number }>('insert into clip_cues (team_id, exercise_id, start_seconds, end_seconds, text) values (?, ?, 1, 2, ?) returning id', [teamId, clipExercise.id, 'Tall through the hips'])
+    // The athlete's form review of a clip of their own.
+    const [reviewClip] = await fixtures.rows<{ id: number }>('insert into media_objects (team_id, key, content_type, size, status, duration_seconds) values (?, ?, ?, 1000, ?, 10) returning id', [teamId, `reviews/matrix/${Math.random()}.mp4`, 'video/mp4', 'ready'])
+    const [review] = await fixtures.rows<{ id: number }>('insert into form_reviews (team_id, athlete_id, clip_id, question) values (?, ?, ?, ?) returning id', [teamId, athlete.userId, reviewClip!.id, 'Is my knee caving?'])
     return {
+      coachId: coach!.id, rivalTeamId: rival.teamId, leaverId: leaver!.id, blockId: block!.id, blockRoutineId: slot!.id, blockStart,
+      clipExerciseId: clipExercise.id, cueId: cue!.id, reviewId: review!.id,
       athleteId: athlete.userId, mateId: mate.userId, exerciseId: exercise.id, routineId, assignmentId, seriesId: series!.id, noteId,
       squadId: squad!.id, inviteId: invite!.id, inviteToken, sessionId: session!.id, entryId: entry!.id, painFlagId: flag!.id, feedToken,
     }
