@@ -7,7 +7,7 @@ import { keyNumbers, weekOfBlock, type WeekKind } from '#shared/utils/progressio
 
 /** The caller's own view of a block: every week, its sessions, what changed and what was done. 404 without sessions in it. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const { id } = paramsWith(event, idParamsSchema)
   const db = await useDb()
   const [block] = await db.select().from(blocks).where(and(eq(blocks.id, id), eq(blocks.teamId, caller.teamId))).limit(1)

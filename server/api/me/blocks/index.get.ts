@@ -5,7 +5,7 @@ import { weekOfBlock } from '#shared/utils/progression'
 
 /** The blocks the caller has sessions in, with the week they are in now. */
 export default defineEventHandler(async (event) => {
-  const caller = await requireTeamRole(event, 'athlete')
+  const caller = await requireAthlete(event)
   const db = await useDb()
   const mine = await db.selectDistinct({ blockId: assignments.blockId }).from(assignments)
     .where(and(eq(assignments.teamId, caller.teamId), eq(assignments.athleteId, caller.userId)))
