@@ -9,6 +9,8 @@ export const idParam = z.string({ error: 'Must be a number' })
   .transform(Number)
   .pipe(z.number().int().positive('Must be a positive id'))
 export const idParamsSchema = z.object({ id: idParam })
+/** A database id sent as a number in a JSON body. */
+export const bodyId = z.number({ error: 'Must be a number' }).int('Must be a whole number').positive('Must be a positive id').max(Number.MAX_SAFE_INTEGER)
 
 export const emailSchema = z.string({ error: 'E-mail is required' }).trim().toLowerCase().max(254, 'E-mail is too long').email('Enter a valid e-mail address')
 export const passwordSchema = z.string({ error: 'Password is required' }).min(10, 'Use at least 10 characters').max(200, 'Use at most 200 characters')

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { idParam } from './common'
+import { bodyId, idParam } from './common'
 import { clipContentTypes } from './exercise'
 
 // Form review: one set of rules for the athlete's upload, the coach's comments and the routes.
@@ -22,7 +22,7 @@ export const reviewUploadRequestSchema = z.object({
 export const reviewCreateSchema = z.object({
   key: z.string({ error: 'The upload key is required' }).trim().min(1, 'The upload key is required').max(500, 'The upload key is too long'),
   question: z.string({ error: 'The question is text' }).trim().max(REVIEW_LIMITS.question, `A question is at most ${REVIEW_LIMITS.question} characters`).default(''),
-  assignmentId: idParam.optional(),
+  assignmentId: bodyId.optional(),
   stepId: z.string().trim().max(100, 'The step id is too long').optional(),
 })
 
@@ -38,7 +38,7 @@ export const reviewAnswerSchema = z.object({
 })
 
 export const reviewPatchSchema = z.object({
-  exerciseId: idParam.nullable(),
+  exerciseId: bodyId.nullable(),
 })
 
 export const reviewListQuerySchema = z.object({
