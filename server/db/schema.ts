@@ -3,10 +3,7 @@ import { foreignKey, index, integer, primaryKey, real, sqliteTable, text, unique
 import type { RoutineStep } from '#shared/schemas/routine-steps'
 import type { AssignmentSnapshot, ExerciseCaution } from '#shared/types/domain'
 import type { FieldOverride, LighterWeeks, ProgressionRule, Taper } from '#shared/utils/progression'
-// The schema is also loaded by plain Node (drizzle-kit, scripts, seeds), which does not know the
-// `#shared` alias: its one value import climbs to the vocabulary by path.
-// eslint-disable-next-line no-restricted-imports
-import { assignmentStatuses, exerciseCategories, injuryStatuses, invitableRoles, painFlagReasons, painFlagStatuses, roles, routineCategories } from '../../shared/utils/vocabulary'
+import { assignmentStatuses, exerciseCategories, injuryStatuses, invitableRoles, painFlagReasons, painFlagStatuses, roles, routineCategories } from '#shared/utils/vocabulary'
 
 const timestamps = {
   createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch('subsec') * 1000)`),
