@@ -110,11 +110,8 @@ export function useBlockForm(initial?: SavedBlock, defaults: { startDate?: strin
   return { draft, input, addRoutine, removeRoutine, addRule, removeRule }
 }
 
-interface FetchFailure { data?: { message?: string, data?: { fields?: Record<string, string> } } }
-
 /** The server's field messages, or one line for the whole form. */
 export function blockErrors(error: unknown) {
-  const response = error as FetchFailure
-  const fields = response.data?.data?.fields ?? {}
-  return { fields, message: Object.keys(fields).length ? 'Check the marked fields.' : (response.data?.message ?? 'That did not work; try again') }
+  const { fields, message } = readApiError(error, 'That did not work; try again')
+  return { fields, message: Object.keys(fields).length ? 'Check the marked fields.' : message }
 }

@@ -1,12 +1,8 @@
 import { CLIP_CUE_LIMITS, type ClipCueInput, type ClipCueView } from '#shared/schemas/clip-cue'
 
-interface ServerError { data?: { message?: string, data?: { fields?: Record<string, string> } }, message?: string }
-
 function fieldsOf(error: unknown): Record<string, string> {
-  const response = error as ServerError
-  const fields = response.data?.data?.fields
-  if (fields && Object.keys(fields).length) return fields
-  return { _: response.data?.message ?? 'The cue could not be saved; try again' }
+  const refused = readApiError(error, 'The cue could not be saved; try again')
+  return Object.keys(refused.fields).length ? refused.fields : { _: refused.message }
 }
 
 const round = (seconds: number) => Math.round(seconds * 1000) / 1000

@@ -1,12 +1,8 @@
 import { reviewUploadRequestSchema } from '#shared/schemas/review'
 import { fieldErrors } from '#shared/utils/errors'
 
-interface ServerError { data?: { message?: string, data?: { fields?: Record<string, string> } }, message?: string }
-
 function messageOf(error: unknown) {
-  const response = error as ServerError
-  const fields = response.data?.data?.fields ?? {}
-  return Object.values(fields)[0] ?? response.data?.message ?? (error as Error)?.message ?? 'The upload failed; try again'
+  return apiErrorMessage(error, (error as Error)?.message || 'The upload failed; try again')
 }
 
 /**
