@@ -35,7 +35,8 @@ export const demoAthletes: DemoAthlete[] = [
 async function upsertUser(db: Database, person: { name: string, email: string }, passwordHash: string) {
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, person.email)).limit(1)
   if (existing) return existing.id
-  const [created] = await db.insert(users).values({ name: person.name, email: person.email, passwordHash, timezone: 'Europe/London' }).returning({ id: users.id })
+  // Demo people have profiles seeded already, so they skip the first-visit questions.
+  const [created] = await db.insert(users).values({ name: person.name, email: person.email, passwordHash, timezone: 'Europe/London', welcomedAt: new Date() }).returning({ id: users.id })
   return created!.id
 }
 

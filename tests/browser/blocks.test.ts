@@ -25,7 +25,7 @@ async function signIn(context: Awaited<ReturnType<typeof newContext>>, email: st
   await page.getByLabel('E-mail').fill(email)
   await page.getByLabel('Password').fill(PASSWORD)
   await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(url => !url.pathname.startsWith('/login'))
+  await page.waitForURL(url => !url.pathname.startsWith('/login'), { timeout: 30_000 })
   return page
 }
 

@@ -36,12 +36,14 @@ const pages: PageVisit[] = [
   { path: '/team', as: 'coach' },
   { path: '/blocks', as: 'coach' },
   { path: '/blocks/new', as: 'coach' },
+  { path: '/blocks/{blockId}', as: 'coach' },
   { path: '/reviews', as: 'coach' },
   { path: '/today', as: 'athlete' },
   { path: '/logbook', as: 'athlete' },
   { path: '/progress', as: 'athlete' },
   { path: '/profile', as: 'athlete' },
   { path: '/reviews', as: 'athlete' },
+  { path: '/my-block/{blockId}', as: 'athlete' },
   { path: '/session/{assignmentId}', as: 'athlete' },
   { path: '/session/routine/{otherRoutineId}', as: 'athlete' },
 ]
@@ -99,6 +101,12 @@ beforeAll(async () => {
     ],
   })
 
+  // A block in its second week, planned, for the block pages.
+  const block = await team.coach.post<{ id: number }>('/api/blocks', { name: 'Ridge Lane spring block', startDate: addDays(today, -7), weeks: 4, athleteIds: [athlete.userId], routines: [{ routineId, weekday: 3, rules: [] }] })
+  if (block.status !== 201) throw new Error(`block: ${block.status} ${block.text}`)
+  const planned = await team.coach.post(`/api/blocks/${block.data.id}/plan`)
+  if (planned.status !== 200) throw new Error(`block plan: ${planned.status} ${planned.text}`)
+
   // A pending invite for the join page.
   const inviteEmail = `pending.${Date.now()}@example.test`
   await team.coach.post('/api/invites', { email: inviteEmail, role: 'athlete' })
@@ -110,6 +118,7 @@ beforeAll(async () => {
     otherRoutineId: String(otherRoutineId),
     athleteId: String(athlete.userId),
     assignmentId: String(assignmentId),
+    blockId: String(block.data.id),
   })
 })
 
