@@ -1,6 +1,7 @@
 import { and, desc, eq, inArray, ne } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { injuryNotes, memberships, painFlags, sessionLogs, squadMembers, squads, teams } from '../db/schema'
+import { labelFormerAthlete } from './former-athletes'
 
 /** Every team the person belongs to, newest membership first. */
 export async function teamsOf(db: Pick<Database, 'select'>, userId: number) {
@@ -17,10 +18,14 @@ export async function headCoachCount(db: Pick<Database, 'select'>, teamId: numbe
 
 /**
  * Ends a person's membership of one team. Their sessions, logs and pain flags stay with the team
- * (the team's history); `anonymise` clears the free text they or their coaches wrote about them.
+ * (the team's history); `anonymise` clears the free text they or their coaches wrote about them and,
+ * for an athlete, shows them as "Former athlete N" wherever the team sees that history.
  */
 export async function endMembership(db: Database, teamId: number, userId: number, options: { anonymise: boolean }) {
   await db.transaction(async (tx) => {
+    const [member] = await tx.select({ role: memberships.role }).from(memberships)
+      .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId))).limit(1)
+    if (options.anonymise && member?.role === 'athlete') await labelFormerAthlete(tx, teamId, userId)
     const teamSquads = tx.select({ id: squads.id }).from(squads).where(eq(squads.teamId, teamId))
     await tx.delete(squadMembers).where(and(eq(squadMembers.userId, userId), inArray(squadMembers.squadId, teamSquads)))
     await tx.delete(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)))
