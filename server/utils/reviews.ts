@@ -5,7 +5,6 @@ import { exercises, formReviewComments, formReviews, mediaObjects, users } from 
 import { mediaExtensions } from '#shared/schemas/exercise'
 import type { ReviewView } from '#shared/schemas/review'
 import type { Caller } from './auth'
-import { shownAthleteName } from './former-athletes'
 
 export function reviewPrefix(teamId: number, athleteId: number) {
   return `teams/${teamId}/reviews/${athleteId}/`
@@ -54,14 +53,13 @@ export async function confirmReviewClip(db: Database, teamId: number, athleteId:
 
 /** Everything the review screen shows, with short-lived URLs for the clip and the reply. */
 export async function reviewView(db: Database, review: typeof formReviews.$inferSelect): Promise<ReviewView> {
-  const [athlete] = await db.select({ name: shownAthleteName(review.teamId, formReviews.athleteId) }).from(formReviews)
-    .innerJoin(users, eq(users.id, formReviews.athleteId)).where(eq(formReviews.id, review.id)).limit(1)
+  const [athlete] = await db.select({ name: users.name }).from(users).where(eq(users.id, review.athleteId)).limit(1)
   const [clip] = await db.select().from(mediaObjects).where(eq(mediaObjects.id, review.clipId)).limit(1)
   const reply = review.replyClipId ? (await db.select().from(mediaObjects).where(eq(mediaObjects.id, review.replyClipId)).limit(1))[0] : undefined
   const exercise = review.exerciseId
     ? (await db.select({ id: exercises.id, name: exercises.name, cues: exercises.cues }).from(exercises).where(eq(exercises.id, review.exerciseId)).limit(1))[0]
     : undefined
-  const comments = await db.select({ id: formReviewComments.id, atSeconds: formReviewComments.atSeconds, text: formReviewComments.text, authorName: shownAthleteName(review.teamId, formReviewComments.authorId), createdAt: formReviewComments.createdAt })
+  const comments = await db.select({ id: formReviewComments.id, atSeconds: formReviewComments.atSeconds, text: formReviewComments.text, authorName: users.name, createdAt: formReviewComments.createdAt })
     .from(formReviewComments).leftJoin(users, eq(users.id, formReviewComments.authorId))
     .where(eq(formReviewComments.reviewId, review.id))
     .orderBy(asc(formReviewComments.atSeconds), asc(formReviewComments.id))

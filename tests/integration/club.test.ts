@@ -207,7 +207,7 @@ describe('an anonymised former athlete', () => {
       await insertPainFlag(history, { teamId, athleteId: person.userId, sessionId: logged[1]!.id, pain: 6, area: 'calf' })
     }
     history.$client.close()
-    // A form-review clip Wren sent before leaving.
+    // A form-review clip Wren sent before leaving: it shows her, so anonymising deletes it.
     const clip = await db.execute({ sql: 'insert into media_objects (team_id, key, content_type, size, status) values (?, ?, \'video/webm\', 10, \'ready\') returning id', args: [teamId, `teams/${teamId}/reviews/${wren.userId}/left.webm`] })
     await db.execute({ sql: 'insert into form_reviews (team_id, athlete_id, clip_id, question) values (?, ?, ?, ?)', args: [teamId, wren.userId, Number(clip.rows[0]!.id), 'Is my knee drifting in?'] })
 
@@ -254,7 +254,9 @@ describe('an anonymised former athlete', () => {
     // The planner's history (and the session still planned) and the review queue.
     expect(labelOf(reads.planner.data.assignments, wren.userId)).toEqual(['Former athlete 1'])
     expect(reads.planner.data.assignments.filter(row => row.athleteId === wren.userId)).toHaveLength(3)
-    expect(labelOf(reads.reviews.data.items, wren.userId)).toEqual(['Former athlete 1'])
+    expect(reads.reviews.data.items.filter(item => item.athleteId === wren.userId)).toEqual([])
+    expect(await rows('select 1 from form_reviews where team_id = ? and athlete_id = ?', [teamId, wren.userId])).toHaveLength(0)
+    expect(await rows('select status from media_objects where id = ?', [Number(clip.rows[0]!.id)])).toEqual([expect.objectContaining({ status: 'deleted' })])
 
     // The label is stable: another athlete anonymised later takes the next number.
     const sorrel = await addAthlete(stack, coach, { name: 'Sorrel Vane' })
@@ -316,6 +318,14 @@ describe('the starter set', () => {
     // Another team, and a team that chose to start empty, have none of it.
     const empty = await registerCoach(stack, 'Empty Club')
     expect(await rows('select 1 from exercises where team_id = ?', [empty.teamId])).toHaveLength(0)
+    // Adding it later gives that team copies of its own (its own rows and clips under its own prefix),
+    // and leaves the first team's as they were.
+    const later = await empty.coach.post<typeof first>('/api/team/starter-set')
+    expect(later.data).toMatchObject({ exercisesAdded: first.exercisesAdded, routinesAdded: first.routinesAdded, clipsCopied: 6 })
+    const laterMedia = await rows<{ key: string }>('select key from media_objects where team_id = ? and status = \'ready\'', [empty.teamId])
+    expect(laterMedia.every(object => object.key.startsWith(`teams/${empty.teamId}/`))).toBe(true)
+    const [firstAgain] = await rows<{ n: number }>('select count(*) as n from exercises where team_id = ?', [teamId])
+    expect(Number(firstAgain!.n)).toBe(first.exercisesAdded)
     // A plain athlete cannot add it.
     const { athlete } = await addAthlete(stack, head)
     expect((await athlete.post('/api/team/starter-set')).status).toBe(403)

@@ -14,7 +14,7 @@ export default defineEventHandler(async (event) => {
     const members = db.select({ id: squadMembers.userId }).from(squadMembers).where(eq(squadMembers.squadId, query.squadId))
     where.push(inArray(formReviews.athleteId, members))
   }
-  const rows = await db.select({ review: formReviews, athleteName: shownAthleteName(caller.teamId, formReviews.athleteId), durationSeconds: mediaObjects.durationSeconds })
+  const rows = await db.select({ review: formReviews, athleteName: users.name, durationSeconds: mediaObjects.durationSeconds })
     .from(formReviews)
     .innerJoin(users, eq(users.id, formReviews.athleteId))
     .innerJoin(mediaObjects, eq(mediaObjects.id, formReviews.clipId))
