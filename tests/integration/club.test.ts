@@ -271,6 +271,17 @@ describe('an anonymised former athlete', () => {
     const acknowledged = await coach.post<{ id: number }>(`/api/pain-flags/${flag.id}/acknowledge`, { reply: 'Hope the calf settled.' })
     expect(acknowledged.status).toBe(200)
     expect(await rows('select 1 from email_outbox where "to" = ? and template = \'pain_flag_reply\'', [wren.email])).toHaveLength(0)
+    // Someone who comes back is a member again, shown by name; their number stays theirs.
+    const invitations = () => stack.mail.to(wren.email).filter(mail => /invited you/.test(mail.subject ?? ''))
+    const before = invitations().length
+    expect((await coach.post('/api/invites', { email: wren.email, role: 'athlete' })).status).toBe(201)
+    await expect.poll(() => invitations().length, { timeout: 10_000 }).toBeGreaterThan(before)
+    const back = linkIn(invitations().at(-1)!, /\/join\/[\w-]+/).split('/').pop()!
+    expect((await new ApiClient(stack.url).post(`/api/invites/${back}/accept`, { name: 'Wren Calder', password: PASSWORD })).status).toBe(201)
+    const rejoined = await coach.get<{ athleteId: number, athleteName: string }[]>('/api/pain-flags?status=all')
+    expect(labelOf(rejoined.data, wren.userId)).toEqual(['Wren Calder'])
+    expect(labelOf(rejoined.data, oriel.userId)).toEqual(['Former athlete 2'])
+    expect(await rows('select number from anonymised_members where team_id = ? and user_id = ?', [teamId, wren.userId])).toEqual([expect.objectContaining({ number: 1 })])
     // Another team never sees the label table of this one.
     const other = await registerCoach(stack, 'Unrelated Harriers')
     expect((await other.coach.get<unknown[]>('/api/pain-flags?status=all')).data).toEqual([])
