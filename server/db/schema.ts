@@ -54,6 +54,22 @@ export const memberships = sqliteTable('memberships', {
   index('memberships_team_role_idx').on(t.teamId, t.role),
 ])
 
+/**
+ * A removed athlete whose history the team keeps under a neutral label ("Former athlete 3") instead of
+ * their name; `number` is stable per person within the team.
+ */
+export const anonymisedMembers = sqliteTable('anonymised_members', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  number: integer('number').notNull(),
+  ...timestamps,
+}, t => [
+  uniqueIndex('anonymised_members_team_user_unique').on(t.teamId, t.userId),
+  uniqueIndex('anonymised_members_team_number_unique').on(t.teamId, t.number),
+  index('anonymised_members_user_idx').on(t.userId),
+])
+
 export const squads = sqliteTable('squads', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   teamId: integer('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),

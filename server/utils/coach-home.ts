@@ -1,8 +1,8 @@
-import { and, asc, count, eq, gt, gte, isNull, lte, sql } from 'drizzle-orm'
+import { sql } from 'drizzle-orm'
 import type { Database } from '../db/client'
-import { assignments, exercises, invites, memberships, routines, sessionLogs, squads, teams } from '../db/schema'
 import { addDays, todayIn } from '#shared/utils/dates'
-import { ratioBand } from '#shared/utils/insights'
+import { RATIO_LOOKBACK_DAYS, ratioBand, ratiosOn, type DailyLoad } from '#shared/utils/insights'
+import { listPainFlags } from './insights'
 
 export interface HomeAthleteDay {
   athleteId: number
@@ -20,75 +20,174 @@ export interface HomeSquadDays {
   today: HomeAthleteDay[]
 }
 
+export interface HomeInvite {
+  id: number
+  email: string
+  role: 'coach' | 'athlete'
+  expiresAt: Date
+}
+
+/** The home's statements, all run side by side: one round trip, however many athletes the team has. */
+export const COACH_HOME_STATEMENTS = 3
+
+interface TeamRow {
+  timezone: string | null
+  checklistDismissedAt: number | null
+  coaches: number
+  coachInvites: number
+  athletes: number
+  athleteInvites: number
+  squads: number
+  exercises: number
+  routines: number
+  planned: number
+  reviewsWaiting: number
+  invites: string
+  upcoming: string
+}
+
+interface AthleteRow {
+  id: number
+  name: string
+  timezone: string
+  firstDay: string | null
+  loads: string | null
+  plan: string | null
+  squads: string | null
+}
+
 /**
- * What a coach checks each morning, for one team, in one round of queries run side by side:
- * open pain flags, who trained or missed yesterday and today (per squad), the next seven days' plan,
- * acute:chronic ratios outside the commonly cited band, pending invitations and the first-run checklist.
+ * The team's settings, the checklist's counts, form-review clips waiting for an answer, pending
+ * invitations and the plan of the days around today, in one row. The upcoming days are read from
+ * `upcomingFrom` to `upcomingTo` (wide enough for any time zone) and narrowed once "today" is known.
+ */
+function teamSummary(db: Database, teamId: number, now: Date, upcomingFrom: string, upcomingTo: string) {
+  return db.all<TeamRow>(sql`
+    select t.timezone as timezone, t.checklist_dismissed_at as checklistDismissedAt,
+      (select count(*) from memberships where team_id = t.id and role != 'athlete') as coaches,
+      (select count(*) from invites where team_id = t.id and role = 'coach' and revoked_at is null) as coachInvites,
+      (select count(*) from memberships where team_id = t.id and role = 'athlete') as athletes,
+      (select count(*) from invites where team_id = t.id and role = 'athlete' and revoked_at is null) as athleteInvites,
+      (select count(*) from squads where team_id = t.id) as squads,
+      (select count(*) from exercises where team_id = t.id) as exercises,
+      (select count(*) from routines where team_id = t.id and is_template = 0) as routines,
+      (select count(*) from assignments where team_id = t.id) as planned,
+      (select count(*) from form_reviews where team_id = t.id and status = 'open') as reviewsWaiting,
+      (select json_group_array(json_array(id, email, role, expires_at)) from (
+        select id, email, role, expires_at from invites
+        where team_id = t.id and accepted_at is null and revoked_at is null and expires_at > ${now.getTime()}
+        order by created_at, id)) as invites,
+      (select json_group_array(json_array(date, title, athletes)) from (
+        select date, json_extract(snapshot, '$.title') as title, count(*) as athletes from assignments
+        where team_id = t.id and date between ${upcomingFrom} and ${upcomingTo}
+        group by date, title order by date, title)) as upcoming
+    from teams as t where t.id = ${teamId}`)
+}
+
+/**
+ * Every current athlete with what the home needs of them: their squads, the day of their first session,
+ * their daily loads over the ratio's look-back (from `loadsFrom`) and what was planned and done on the days
+ * from `planFrom` to `planTo`. Grouped in SQLite and packed as JSON, one row per athlete.
+ */
+function athleteSummaries(db: Database, teamId: number, loadsFrom: string, planFrom: string, planTo: string) {
+  return db.all<AthleteRow>(sql`
+    with daily as (
+      select athlete_id, day, coalesce(sum(max(coalesce(load, 0), 0)), 0) as total, count(*) as sessions
+      from session_logs where team_id = ${teamId} and day between ${loadsFrom} and ${planTo}
+      group by athlete_id, day
+    ),
+    loads as (
+      select athlete_id, json_group_array(json_array(day, total, sessions)) as packed from daily group by athlete_id
+    ),
+    plan as (
+      select athlete_id, json_group_array(json_array(date, planned, done)) as packed from (
+        select athlete_id, date, count(*) as planned, sum(case when status in ('done', 'partial') then 1 else 0 end) as done
+        from assignments where team_id = ${teamId} and date between ${planFrom} and ${planTo}
+        group by athlete_id, date)
+      group by athlete_id
+    ),
+    links as (
+      select squad_members.user_id, json_group_array(json_array(squads.id, squads.name)) as packed
+      from squad_members join squads on squads.id = squad_members.squad_id
+      where squads.team_id = ${teamId} group by squad_members.user_id
+    )
+    select users.id as id, users.name as name, users.timezone as timezone,
+      (select min(day) from session_logs where athlete_id = users.id and team_id = ${teamId}) as firstDay,
+      loads.packed as loads, plan.packed as plan, links.packed as squads
+    from memberships
+    join users on users.id = memberships.user_id
+    left join loads on loads.athlete_id = users.id
+    left join plan on plan.athlete_id = users.id
+    left join links on links.user_id = users.id
+    where memberships.team_id = ${teamId} and memberships.role = 'athlete'
+    order by users.name, users.id`)
+}
+
+function parsed<T>(packed: string | null | undefined): T[] {
+  return packed ? JSON.parse(packed) as T[] : []
+}
+
+/**
+ * What a coach checks each morning, for one team, in three statements run side by side: open pain flags,
+ * who trained or missed yesterday and today (per squad), the next seven days' plan, acute:chronic ratios
+ * outside the commonly cited band, pending invitations, form-review clips waiting and the first-run checklist.
+ * The ratios go through the same `ratiosOn` as the insights table, over the same daily loads.
  */
 export async function coachHome(db: Database, teamId: number, now = new Date()) {
-  const [team] = await db.select({ timezone: teams.timezone, checklistDismissedAt: teams.checklistDismissedAt }).from(teams).where(eq(teams.id, teamId)).limit(1)
+  // "Today" somewhere on Earth is never more than a day from today in UTC, so the ranges below cover
+  // the team's days and every athlete's without reading the time zones first.
+  const utcToday = todayIn('UTC', now)
+  const earliestToday = addDays(utcToday, -1)
+  const latestToday = addDays(utcToday, 1)
+  const [[team], flags, athleteRows] = await Promise.all([
+    teamSummary(db, teamId, now, utcToday, addDays(latestToday, 7)),
+    listPainFlags(db, teamId, { status: 'open', limit: 20 }),
+    athleteSummaries(db, teamId, addDays(earliestToday, -(RATIO_LOOKBACK_DAYS - 1)), addDays(earliestToday, -1), latestToday),
+  ])
   const today = todayIn(team?.timezone ?? 'UTC', now)
   const yesterday = addDays(today, -1)
   const weekEnd = addDays(today, 7)
 
-  const [flags, rows, recentPlan, recentLogs, upcoming, pending, counts] = await Promise.all([
-    listPainFlags(db, teamId, { status: 'open', limit: 20 }),
-    teamInsightsRows(db, teamId, undefined, now),
-    db.select({ athleteId: assignments.athleteId, date: assignments.date, planned: count(), done: sql<number>`sum(case when ${assignments.status} in ('done', 'partial') then 1 else 0 end)` })
-      .from(assignments).where(and(eq(assignments.teamId, teamId), gte(assignments.date, yesterday), lte(assignments.date, today)))
-      .groupBy(assignments.athleteId, assignments.date),
-    db.select({ athleteId: sessionLogs.athleteId, day: sessionLogs.day }).from(sessionLogs)
-      .where(and(eq(sessionLogs.teamId, teamId), gte(sessionLogs.day, yesterday), lte(sessionLogs.day, today)))
-      .groupBy(sessionLogs.athleteId, sessionLogs.day),
-    db.select({ date: assignments.date, title: sql<string>`json_extract(${assignments.snapshot}, '$.title')`, athletes: count() })
-      .from(assignments).where(and(eq(assignments.teamId, teamId), gt(assignments.date, today), lte(assignments.date, weekEnd)))
-      .groupBy(assignments.date, sql`json_extract(${assignments.snapshot}, '$.title')`).orderBy(asc(assignments.date)),
-    db.select({ id: invites.id, email: invites.email, role: invites.role, expiresAt: invites.expiresAt }).from(invites)
-      .where(and(eq(invites.teamId, teamId), isNull(invites.acceptedAt), isNull(invites.revokedAt), gt(invites.expiresAt, now)))
-      .orderBy(asc(invites.createdAt)),
-    db.select({
-      coaches: sql<number>`(select count(*) from ${memberships} where ${memberships.teamId} = ${teamId} and ${memberships.role} != 'athlete')`,
-      coachInvites: sql<number>`(select count(*) from ${invites} where ${invites.teamId} = ${teamId} and ${invites.role} = 'coach' and ${invites.revokedAt} is null)`,
-      athletes: sql<number>`(select count(*) from ${memberships} where ${memberships.teamId} = ${teamId} and ${memberships.role} = 'athlete')`,
-      athleteInvites: sql<number>`(select count(*) from ${invites} where ${invites.teamId} = ${teamId} and ${invites.role} = 'athlete' and ${invites.revokedAt} is null)`,
-      squads: sql<number>`(select count(*) from ${squads} where ${squads.teamId} = ${teamId})`,
-      exercises: sql<number>`(select count(*) from ${exercises} where ${exercises.teamId} = ${teamId})`,
-      routines: sql<number>`(select count(*) from ${routines} where ${routines.teamId} = ${teamId} and ${routines.isTemplate} = 0)`,
-      planned: sql<number>`(select count(*) from ${assignments} where ${assignments.teamId} = ${teamId})`,
-    }).from(teams).where(eq(teams.id, teamId)),
-  ])
-
-  const planOf = new Map(recentPlan.map(row => [`${row.athleteId} ${row.date}`, row]))
-  const trained = new Set(recentLogs.map(row => `${row.athleteId} ${row.day}`))
-  const dayOf = (athlete: { athleteId: number, name: string }, day: string): HomeAthleteDay => {
-    const plan = planOf.get(`${athlete.athleteId} ${day}`)
-    return { athleteId: athlete.athleteId, name: athlete.name, planned: plan?.planned ?? 0, done: Number(plan?.done ?? 0), trained: trained.has(`${athlete.athleteId} ${day}`) }
-  }
-  // An athlete with nothing planned and nothing logged on a day is left out of that day's list.
-  const relevant = (entry: HomeAthleteDay) => entry.planned > 0 || entry.trained
   const groups = new Map<number | null, HomeSquadDays>()
-  for (const row of rows) {
-    const homes = row.squads.length ? row.squads : [{ id: null, name: 'No squad' }]
-    for (const squad of homes) {
+  const ratios: { athleteId: number, name: string, ratio: number | null, band: 'low' | 'high' }[] = []
+  for (const athlete of athleteRows) {
+    const daily = parsed<[string, number, number]>(athlete.loads).map(([day, load, sessions]) => ({ day, load: Number(load), sessions: Number(sessions) }))
+    const plan = new Map(parsed<[string, number, number]>(athlete.plan).map(([date, planned, done]) => [date, { planned: Number(planned), done: Number(done) }]))
+    const trainedOn = new Set(daily.filter(row => row.sessions > 0).map(row => row.day))
+    const dayOf = (day: string): HomeAthleteDay => ({
+      athleteId: Number(athlete.id),
+      name: athlete.name,
+      planned: plan.get(day)?.planned ?? 0,
+      done: plan.get(day)?.done ?? 0,
+      trained: trainedOn.has(day),
+    })
+    // An athlete with nothing planned and nothing logged on a day is left out of that day's list.
+    const relevant = (entry: HomeAthleteDay) => entry.planned > 0 || entry.trained
+    const squads = parsed<[number, string]>(athlete.squads).map(([id, name]) => ({ id: Number(id), name }))
+      .sort((a, b) => a.name.localeCompare(b.name))
+    for (const squad of squads.length ? squads : [{ id: null, name: 'No squad' }]) {
       const group = groups.get(squad.id) ?? { squadId: squad.id, squadName: squad.name, yesterday: [], today: [] }
       groups.set(squad.id, group)
-      const y = dayOf(row, yesterday)
-      const t = dayOf(row, today)
+      const y = dayOf(yesterday)
+      const t = dayOf(today)
       if (relevant(y)) group.yesterday.push(y)
       if (relevant(t)) group.today.push(t)
     }
+    const { acwrRolling } = ratiosOn(daily as DailyLoad[], athlete.firstDay, todayIn(athlete.timezone, now))
+    const band = ratioBand(acwrRolling)
+    if (band === 'low' || band === 'high') ratios.push({ athleteId: Number(athlete.id), name: athlete.name, ratio: acwrRolling, band })
   }
 
-  const c = counts[0]
+  const count = (key: keyof TeamRow) => Number(team?.[key] ?? 0)
   const checklist = {
     dismissed: Boolean(team?.checklistDismissedAt),
     steps: [
-      { key: 'coaches', label: 'Invite your coaches', done: Number(c?.coaches ?? 0) > 1 || Number(c?.coachInvites ?? 0) > 0, to: '/team' },
-      { key: 'athletes', label: 'Invite your athletes', done: Number(c?.athletes ?? 0) > 0 || Number(c?.athleteInvites ?? 0) > 0, to: '/team' },
-      { key: 'squads', label: 'Make squads', done: Number(c?.squads ?? 0) > 0, to: '/team' },
-      { key: 'library', label: 'Review the exercise library', done: Number(c?.exercises ?? 0) > 0, to: '/exercises' },
-      { key: 'routine', label: 'Build or copy a first routine', done: Number(c?.routines ?? 0) > 0, to: '/routines' },
-      { key: 'plan', label: 'Plan a first week', done: Number(c?.planned ?? 0) > 0, to: '/planner' },
+      { key: 'coaches', label: 'Invite your coaches', done: count('coaches') > 1 || count('coachInvites') > 0, to: '/team' },
+      { key: 'athletes', label: 'Invite your athletes', done: count('athletes') > 0 || count('athleteInvites') > 0, to: '/team' },
+      { key: 'squads', label: 'Make squads', done: count('squads') > 0, to: '/team' },
+      { key: 'library', label: 'Review the exercise library', done: count('exercises') > 0, to: '/exercises' },
+      { key: 'routine', label: 'Build or copy a first routine', done: count('routines') > 0, to: '/routines' },
+      { key: 'plan', label: 'Plan a first week', done: count('planned') > 0, to: '/planner' },
     ],
   }
 
@@ -98,10 +197,14 @@ export async function coachHome(db: Database, teamId: number, now = new Date()) 
     painFlags: flags,
     squads: [...groups.values()].filter(group => group.yesterday.length || group.today.length)
       .sort((a, b) => (a.squadId === null ? 1 : 0) - (b.squadId === null ? 1 : 0) || a.squadName.localeCompare(b.squadName)),
-    upcoming: upcoming.map(row => ({ date: row.date, title: row.title, athletes: row.athletes })),
-    ratios: rows.filter(row => ratioBand(row.acwrRolling) === 'low' || ratioBand(row.acwrRolling) === 'high')
-      .map(row => ({ athleteId: row.athleteId, name: row.name, ratio: row.acwrRolling, band: ratioBand(row.acwrRolling) as 'low' | 'high' })),
-    invites: pending,
+    upcoming: parsed<[string, string, number]>(team?.upcoming)
+      .filter(([date]) => date > today && date <= weekEnd)
+      .map(([date, title, athletes]) => ({ date, title, athletes: Number(athletes) })),
+    ratios,
+    invites: parsed<[number, string, 'coach' | 'athlete', number]>(team?.invites)
+      .map(([id, email, role, expiresAt]): HomeInvite => ({ id: Number(id), email, role, expiresAt: new Date(Number(expiresAt)) })),
+    /** Form-review clips waiting for a coach's answer (the review queue's "open" ones). */
+    reviewsWaiting: count('reviewsWaiting'),
     checklist,
   }
 }

@@ -9,6 +9,7 @@ import {
 } from '#shared/utils/insights'
 import { addDays, daysBetween, startOfWeek, todayIn } from '#shared/utils/dates'
 import { e1rmEpley, volumeLoad } from '#shared/utils/strength'
+import { isFormerMember, shownAthleteName } from './former-athletes'
 
 // An assignment counts as done when the athlete finished a session for it, or marked it done or partly done.
 // Written with qualified names: drizzle leaves columns unqualified in single-table selects, which would
@@ -61,6 +62,20 @@ export async function listTeamAthletes(db: Database, teamId: number, squadId?: n
         .where(and(eq(memberships.teamId, teamId), eq(memberships.role, 'athlete'))).orderBy(asc(users.name))
     : await query.where(and(eq(memberships.teamId, teamId), eq(memberships.role, 'athlete'))).orderBy(asc(users.name))
   return rows.map(row => ({ ...row, openPainFlags: Number(row.openPainFlags) }))
+}
+
+/**
+ * Athletes who have left the team but whose sessions it keeps, shown as the team sees them ("Former
+ * athlete N" when anonymised), for the team's exports.
+ */
+export async function listFormerAthletes(db: Database, teamId: number): Promise<TeamAthlete[]> {
+  const name = shownAthleteName(teamId, sessionLogs.athleteId)
+  const rows = await db.select({ id: sessionLogs.athleteId, name, timezone: users.timezone, firstDay: sql<string | null>`min(${sessionLogs.day})`, lastDay: sql<string | null>`max(${sessionLogs.day})` })
+    .from(sessionLogs).innerJoin(users, eq(users.id, sessionLogs.athleteId))
+    .where(and(eq(sessionLogs.teamId, teamId), isFormerMember(teamId, sessionLogs.athleteId)))
+    .groupBy(sessionLogs.athleteId)
+    .orderBy(asc(name))
+  return rows.map(row => ({ ...row, openPainFlags: 0 }))
 }
 
 async function teamAthleteOrNull(db: Database, teamId: number, athleteId: number) {
@@ -219,10 +234,11 @@ const routineTitle = sql<string>`coalesce(json_extract(${assignments.snapshot}, 
 
 /** Sessions as the screen and the CSV show them (same rounding). */
 export async function sessionRows(db: Database, teamId: number, options: { athleteIds?: number[], from: string, to: string, limit?: number, newestFirst?: boolean }) {
+  const athleteName = shownAthleteName(teamId, sessionLogs.athleteId)
   const query = db.select({
     id: sessionLogs.id,
     athleteId: sessionLogs.athleteId,
-    athleteName: users.name,
+    athleteName,
     day: sessionLogs.day,
     routine: routineTitle,
     durationS: sessionLogs.durationS,
@@ -239,7 +255,7 @@ export async function sessionRows(db: Database, teamId: number, options: { athle
       between(sessionLogs.day, options.from, options.to),
       options.athleteIds ? inArray(sessionLogs.athleteId, options.athleteIds) : undefined,
     ))
-    .orderBy(...(options.newestFirst ? [desc(sessionLogs.day), desc(sessionLogs.id)] : [asc(users.name), asc(sessionLogs.day), asc(sessionLogs.id)]))
+    .orderBy(...(options.newestFirst ? [desc(sessionLogs.day), desc(sessionLogs.id)] : [asc(athleteName), asc(sessionLogs.day), asc(sessionLogs.id)]))
   const rows = options.limit ? await query.limit(options.limit) : await query
   return rows.map(row => ({
     athleteId: row.athleteId,
@@ -266,6 +282,8 @@ export interface PainFlagView {
   id: number
   athleteId: number
   athleteName: string
+  /** No longer in the team: their history stays, their report and replies do not. */
+  formerAthlete: boolean
   sessionId: number
   day: string
   routine: string
@@ -285,7 +303,8 @@ export async function listPainFlags(db: Database, teamId: number, options: { id?
   const rows = await db.select({
     id: painFlags.id,
     athleteId: painFlags.athleteId,
-    athleteName: users.name,
+    athleteName: shownAthleteName(teamId, painFlags.athleteId),
+    formerAthlete: isFormerMember(teamId, painFlags.athleteId),
     sessionId: painFlags.sessionId,
     day: sessionLogs.day,
     routine: routineTitle,
@@ -313,6 +332,7 @@ export async function listPainFlags(db: Database, teamId: number, options: { id?
     .limit(options.limit ?? 200)
   return rows.map(row => ({
     ...row,
+    formerAthlete: Boolean(row.formerAthlete),
     acknowledgedAt: row.acknowledgedAt ? row.acknowledgedAt.toISOString() : null,
     createdAt: row.createdAt.toISOString(),
   }))

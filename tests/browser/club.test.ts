@@ -2,7 +2,7 @@ import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
 import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
-import { uniqueEmail } from '../support/client'
+import { ApiClient, uniqueEmail } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
 import { hillSteps, insertRoutine, openTestDb } from '../support/planner'
 import { startStack, type Stack } from '../support/stack'
@@ -126,6 +126,66 @@ describe('a new club in Chromium', () => {
     await flag.getByLabel('Reply to Wren Calder (optional)').fill('Rest the shin two days and see the physio if it still hurts.')
     await flag.getByRole('button', { name: 'Acknowledge' }).click()
     await page.getByRole('heading', { name: 'Open pain flags (0)' }).waitFor()
+    await context.close()
+  })
+})
+
+describe('a coach of two teams in Chromium', () => {
+  it('switches team from the header, sees only the chosen team\'s athletes, and keeps the choice across a reload', async () => {
+    const north = await registerCoach(stack, 'North Ridge Runners')
+    const south = await registerCoach(stack, 'South Ridge Runners')
+    const cai = await addAthlete(stack, north.coach, { name: 'Cai Penhallow' })
+    const juno = await addAthlete(stack, south.coach, { name: 'Juno Halloway' })
+    // One coach joins both teams from the e-mailed invitations, with one account.
+    const email = uniqueEmail('twoteams')
+    for (const [index, team] of [north, south].entries()) {
+      expect((await team.coach.post('/api/invites', { email, role: 'coach' })).status).toBe(201)
+      const mail = await stack.mail.waitFor(email, index === 0 ? /North Ridge/ : /South Ridge/)
+      const token = linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!
+      const accepted = await new ApiClient(stack.url).post(`/api/invites/${token}/accept`, { name: 'Idris Fenn', password: PASSWORD })
+      expect(accepted.status).toBe(201)
+    }
+    // An open pain flag in each team, so each coach's home shows its own athlete.
+    const db = openTestDb(stack)
+    const today = todayIn('UTC')
+    for (const [team, athleteId, title] of [[north, cai.userId, 'Ridge hill reps'], [south, juno.userId, 'Valley strides']] as const) {
+      const routineId = await insertRoutine(db, team.teamId, { title })
+      const assignment = await db.execute({ sql: 'insert into assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date, status) values (?, ?, ?, 1, ?, ?, \'done\') returning id', args: [team.teamId, athleteId, routineId, JSON.stringify({ title, category: 'hills', description: '', steps: hillSteps(), exercises: [] }), today] })
+      const session = await db.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, finished_at, day, duration_s, session_rpe, load, pain, pain_area) values (?, ?, ?, ?, ?, ?, ?, 1800, 6, 180, 6, \'knee\') returning id', args: [team.teamId, Number(assignment.rows[0]!.id), athleteId, `switch-${athleteId}`, Date.now() - 3_600_000, Date.now(), today] })
+      await db.execute({ sql: 'insert into pain_flags (team_id, athlete_id, session_id, pain, area, reason) values (?, ?, ?, 6, \'knee\', \'high_pain\')', args: [team.teamId, athleteId, Number(session.rows[0]!.id)] })
+    }
+    db.close()
+
+    const context = await newContext(browser, 'desktop')
+    const page = await signIn(context, email)
+    await page.goto(`${stack.url}/coach`)
+    // Signing in picks the newest membership: the south team.
+    await page.getByRole('heading', { level: 1, name: 'South Ridge Runners' }).waitFor()
+    await page.getByRole('article', { name: /Pain flag: Juno Halloway/ }).waitFor()
+    expect(await page.getByText('Cai Penhallow').count()).toBe(0)
+    const switcher = page.getByRole('combobox', { name: 'Team', exact: true })
+    expect(await switcher.locator('option').allTextContents()).toEqual(['South Ridge Runners', 'North Ridge Runners'])
+
+    await switcher.selectOption({ label: 'North Ridge Runners' })
+    await page.getByRole('heading', { level: 1, name: 'North Ridge Runners' }).waitFor()
+    await page.getByRole('article', { name: /Pain flag: Cai Penhallow/ }).waitFor()
+    expect(await page.getByText('Juno Halloway').count()).toBe(0)
+    await page.screenshot({ path: screenshotPath('club-team-switcher-desktop'), fullPage: false })
+
+    // The choice stays across a reload, and every page follows it.
+    await page.reload()
+    await page.getByRole('heading', { level: 1, name: 'North Ridge Runners' }).waitFor()
+    expect(await page.getByRole('combobox', { name: 'Team', exact: true }).inputValue()).toBe(String(north.teamId))
+    await page.goto(`${stack.url}/insights`)
+    await page.getByText('Cai Penhallow').first().waitFor()
+    expect(await page.getByText('Juno Halloway').count()).toBe(0)
+
+    // At phone width the switcher is in the header too; switching back shows the south team's athlete only.
+    await page.setViewportSize(viewports.phone)
+    await page.getByRole('combobox', { name: 'Team', exact: true }).selectOption({ label: 'South Ridge Runners' })
+    await page.getByRole('heading', { level: 1, name: 'South Ridge Runners' }).waitFor()
+    await page.getByRole('article', { name: /Pain flag: Juno Halloway/ }).waitFor()
+    expect(await page.getByText('Cai Penhallow').count()).toBe(0)
     await context.close()
   })
 })

@@ -187,6 +187,107 @@ describe('more than one team', () => {
   })
 })
 
+describe('an anonymised former athlete', () => {
+  it('shows under a stable "Former athlete N" wherever the team sees their history, and their name and e-mail nowhere', async () => {
+    const { coach, teamId } = await registerCoach(stack, 'Anonymised Ridge Club')
+    const wren = await addAthlete(stack, coach, { name: 'Wren Calder' })
+    const oriel = await addAthlete(stack, coach, { name: 'Oriel Banks' })
+    const piran = await addAthlete(stack, coach, { name: 'Piran Hale' })
+    const today = todayIn('UTC')
+    const history = await openTestDatabase(stack.databaseUrl)
+    const routine = await createRoutine(history, teamId, 'Quarry hill reps')
+    const sessions = new Map<number, { id: number }[]>()
+    for (const [person, word] of [[wren, 'heather'], [oriel, 'bracken'], [piran, 'gorse']] as const) {
+      const logged = await insertHistory(history, { teamId, athleteId: person.userId, today, routine, days: [
+        { daysAgo: 9, done: true, load: 200, note: `Calf tight on the last rep (${word})` },
+        { daysAgo: 2, done: true, load: 240, pain: 6, painArea: 'calf', note: `Calf again (${word})` },
+        { daysAgo: -2, done: false },
+      ] })
+      sessions.set(person.userId, logged)
+      await insertPainFlag(history, { teamId, athleteId: person.userId, sessionId: logged[1]!.id, pain: 6, area: 'calf' })
+    }
+    history.$client.close()
+    // A form-review clip Wren sent before leaving: it shows her, so anonymising deletes it.
+    const clip = await db.execute({ sql: 'insert into media_objects (team_id, key, content_type, size, status) values (?, ?, \'video/webm\', 10, \'ready\') returning id', args: [teamId, `teams/${teamId}/reviews/${wren.userId}/left.webm`] })
+    await db.execute({ sql: 'insert into form_reviews (team_id, athlete_id, clip_id, question) values (?, ?, ?, ?)', args: [teamId, wren.userId, Number(clip.rows[0]!.id), 'Is my knee drifting in?'] })
+
+    // Wren is removed and anonymised by the coach; Oriel leaves and asks for it herself; Piran is removed by name.
+    expect((await coach.delete(`/api/team/members/${wren.userId}?anonymise=true`)).status).toBe(204)
+    expect((await oriel.athlete.delete(`/api/me/teams/${teamId}?anonymise=perhaps`)).status).toBe(400)
+    expect((await oriel.athlete.delete(`/api/me/teams/${teamId}?anonymise=true`)).status).toBe(200)
+    expect((await coach.delete(`/api/team/members/${piran.userId}`)).status).toBe(204)
+
+    const hidden = ['Wren Calder', wren.email, 'Oriel Banks', oriel.email, 'heather', 'bracken']
+    const reads = {
+      flags: await coach.get<{ id: number, athleteId: number, athleteName: string, formerAthlete: boolean, note: string }[]>('/api/pain-flags?status=all'),
+      home: await coach.get<{ painFlags: { athleteId: number, athleteName: string }[] }>('/api/coach/home'),
+      team: await coach.get<{ rows: { name: string }[] }>('/api/insights/team'),
+      sessionsCsv: await coach.get<string>(`/exports/logs.csv?from=${addDays(today, -30)}&to=${today}`),
+      weeksCsv: await coach.get<string>(`/exports/logs.csv?kind=weeks&from=${addDays(today, -30)}&to=${today}`),
+      planner: await coach.get<{ assignments: { athleteId: number, athleteName: string }[] }>(`/api/assignments?from=${addDays(today, -30)}&to=${addDays(today, 7)}`),
+      reviews: await coach.get<{ items: { athleteId: number, athleteName: string }[] }>('/api/reviews?status=all'),
+    }
+    for (const [name, read] of Object.entries(reads)) {
+      expect(read.status, name).toBe(200)
+      for (const secret of hidden) expect(read.text, `${name} shows ${secret}`).not.toContain(secret)
+    }
+    const labelOf = (rows: { athleteId: number, athleteName: string }[], athleteId: number) => [...new Set(rows.filter(row => row.athleteId === athleteId).map(row => row.athleteName))]
+
+    // Pain flags (the list the insights page shows): labels in the order the people were anonymised.
+    expect(labelOf(reads.flags.data, wren.userId)).toEqual(['Former athlete 1'])
+    expect(labelOf(reads.flags.data, oriel.userId)).toEqual(['Former athlete 2'])
+    expect(labelOf(reads.flags.data, piran.userId)).toEqual(['Piran Hale'])
+    expect(reads.flags.data.every(flag => flag.formerAthlete)).toBe(true)
+    expect(labelOf(reads.home.data.painFlags, wren.userId)).toEqual(['Former athlete 1'])
+    // The team table lists members only; a former athlete's report is not reachable.
+    expect(reads.team.data.rows).toEqual([])
+    expect((await coach.get(`/api/insights/athletes/${wren.userId}`)).status).toBe(404)
+    expect((await coach.get(`/exports/logs.csv?athleteId=${wren.userId}`)).status).toBe(404)
+    // The team's exports keep the history under the labels; the anonymised notes are gone.
+    const sessionLines = reads.sessionsCsv.text.trim().split(/\r?\n/)
+    expect(sessionLines.filter(line => line.startsWith('Former athlete 1,'))).toHaveLength(2)
+    expect(sessionLines.filter(line => line.startsWith('Former athlete 2,'))).toHaveLength(2)
+    expect(sessionLines.filter(line => line.startsWith('Piran Hale,') && line.includes('gorse'))).toHaveLength(2)
+    expect(reads.weeksCsv.text).toMatch(/^Former athlete 1,/m)
+    expect(reads.weeksCsv.text).toMatch(/^Former athlete 2,/m)
+    expect(reads.weeksCsv.text).toMatch(/^Piran Hale,/m)
+    // The planner's history (and the session still planned) and the review queue.
+    expect(labelOf(reads.planner.data.assignments, wren.userId)).toEqual(['Former athlete 1'])
+    expect(reads.planner.data.assignments.filter(row => row.athleteId === wren.userId)).toHaveLength(3)
+    expect(reads.reviews.data.items.filter(item => item.athleteId === wren.userId)).toEqual([])
+    expect(await rows('select 1 from form_reviews where team_id = ? and athlete_id = ?', [teamId, wren.userId])).toHaveLength(0)
+    expect(await rows('select status from media_objects where id = ?', [Number(clip.rows[0]!.id)])).toEqual([expect.objectContaining({ status: 'deleted' })])
+
+    // The label is stable: another athlete anonymised later takes the next number.
+    const sorrel = await addAthlete(stack, coach, { name: 'Sorrel Vane' })
+    expect((await coach.delete(`/api/team/members/${sorrel.userId}?anonymise=true`)).status).toBe(204)
+    const [label] = await rows<{ number: number }>('select number from anonymised_members where team_id = ? and user_id = ?', [teamId, sorrel.userId])
+    expect(Number(label!.number)).toBe(3)
+    const again = await coach.get<{ athleteId: number, athleteName: string }[]>('/api/pain-flags?status=all')
+    expect(labelOf(again.data, wren.userId)).toEqual(['Former athlete 1'])
+
+    // Closing a former athlete's flag with a reply sends them nothing.
+    const flag = reads.flags.data.find(item => item.athleteId === wren.userId)!
+    const acknowledged = await coach.post<{ id: number }>(`/api/pain-flags/${flag.id}/acknowledge`, { reply: 'Hope the calf settled.' })
+    expect(acknowledged.status).toBe(200)
+    expect(await rows('select 1 from email_outbox where "to" = ? and template = \'pain_flag_reply\'', [wren.email])).toHaveLength(0)
+    // Someone who comes back is a member again, shown by name; their number stays theirs.
+    const invitations = () => stack.mail.to(wren.email).filter(mail => /invited you/.test(mail.subject ?? ''))
+    const before = invitations().length
+    expect((await coach.post('/api/invites', { email: wren.email, role: 'athlete' })).status).toBe(201)
+    await expect.poll(() => invitations().length, { timeout: 10_000 }).toBeGreaterThan(before)
+    const back = linkIn(invitations().at(-1)!, /\/join\/[\w-]+/).split('/').pop()!
+    expect((await new ApiClient(stack.url).post(`/api/invites/${back}/accept`, { name: 'Wren Calder', password: PASSWORD })).status).toBe(201)
+    const rejoined = await coach.get<{ athleteId: number, athleteName: string }[]>('/api/pain-flags?status=all')
+    expect(labelOf(rejoined.data, wren.userId)).toEqual(['Wren Calder'])
+    expect(labelOf(rejoined.data, oriel.userId)).toEqual(['Former athlete 2'])
+    expect(await rows('select number from anonymised_members where team_id = ? and user_id = ?', [teamId, wren.userId])).toEqual([expect.objectContaining({ number: 1 })])
+    // Another team never sees the label table of this one.
+    const other = await registerCoach(stack, 'Unrelated Harriers')
+    expect((await other.coach.get<unknown[]>('/api/pain-flags?status=all')).data).toEqual([])
+  })
+})
+
 describe('the starter set', () => {
   it('copies the library with clips and the starter routines into the new team only, once', async () => {
     const head = new ApiClient(stack.url)
@@ -228,6 +329,14 @@ describe('the starter set', () => {
     // Another team, and a team that chose to start empty, have none of it.
     const empty = await registerCoach(stack, 'Empty Club')
     expect(await rows('select 1 from exercises where team_id = ?', [empty.teamId])).toHaveLength(0)
+    // Adding it later gives that team copies of its own (its own rows and clips under its own prefix),
+    // and leaves the first team's as they were.
+    const later = await empty.coach.post<typeof first>('/api/team/starter-set')
+    expect(later.data).toMatchObject({ exercisesAdded: first.exercisesAdded, routinesAdded: first.routinesAdded, clipsCopied: 6 })
+    const laterMedia = await rows<{ key: string }>('select key from media_objects where team_id = ? and status = \'ready\'', [empty.teamId])
+    expect(laterMedia.every(object => object.key.startsWith(`teams/${empty.teamId}/`))).toBe(true)
+    const [firstAgain] = await rows<{ n: number }>('select count(*) as n from exercises where team_id = ?', [teamId])
+    expect(Number(firstAgain!.n)).toBe(first.exercisesAdded)
     // A plain athlete cannot add it.
     const { athlete } = await addAthlete(stack, head)
     expect((await athlete.post('/api/team/starter-set')).status).toBe(403)

@@ -23,11 +23,12 @@ export default defineEventHandler(async (event) => {
     filters.push(inArray(assignments.athleteId, members))
   }
 
+  const athleteName = shownAthleteName(caller.teamId, assignments.athleteId)
   const rows = await db.select({
     id: assignments.id,
     date: assignments.date,
     athleteId: assignments.athleteId,
-    athleteName: users.name,
+    athleteName,
     timezone: users.timezone,
     routineId: assignments.routineId,
     routineVersion: assignments.routineVersion,
@@ -42,7 +43,7 @@ export default defineEventHandler(async (event) => {
     .innerJoin(routines, eq(routines.id, assignments.routineId))
     .leftJoin(assignmentSeries, eq(assignmentSeries.id, assignments.seriesId))
     .where(and(...filters))
-    .orderBy(asc(assignments.date), asc(users.name), asc(assignments.id))
+    .orderBy(asc(assignments.date), asc(athleteName), asc(assignments.id))
 
   const now = new Date()
   return {

@@ -25,7 +25,10 @@ export default defineEventHandler(async (event) => {
   }
   const db = await useDb()
   const athleteId = coach ? query.athleteId : caller.userId
-  const athletes = (await listTeamAthletes(db, caller.teamId)).filter(athlete => !athleteId || athlete.id === athleteId)
+  // A team export keeps the history of athletes who have left (under "Former athlete N" when anonymised).
+  const athletes = athleteId
+    ? (await listTeamAthletes(db, caller.teamId)).filter(athlete => athlete.id === athleteId)
+    : [...await listTeamAthletes(db, caller.teamId), ...await listFormerAthletes(db, caller.teamId)]
   if (athleteId && !athletes.length) notFound('No such athlete')
   const ids = athletes.map(athlete => athlete.id)
 

@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const { id } = paramsWith(event, idParamsSchema)
   const db = await useDb()
   const loaded = await loadBlock(db, caller.teamId, id)
-  const rows = await db.select({ id: assignments.id, athleteId: assignments.athleteId, week: assignments.blockWeek, snapshot: assignments.snapshot, status: assignments.status, name: users.name })
+  const rows = await db.select({ id: assignments.id, athleteId: assignments.athleteId, week: assignments.blockWeek, snapshot: assignments.snapshot, status: assignments.status, name: shownAthleteName(caller.teamId, assignments.athleteId) })
     .from(assignments).innerJoin(users, eq(users.id, assignments.athleteId))
     .where(and(eq(assignments.teamId, caller.teamId), eq(assignments.blockId, id)))
   const ids = rows.map(row => row.id)

@@ -25,6 +25,7 @@ export default defineEventHandler(async (event) => {
     gte(assignments.date, today),
     or(routineIds.length ? inArray(assignments.routineId, routineIds) : undefined, snapshotUsesExercise(id)),
   )
+  const athleteName = shownAthleteName(caller.teamId, assignments.athleteId)
   const [upcoming, [totals]] = await Promise.all([
     db.select({
       id: assignments.id,
@@ -33,11 +34,11 @@ export default defineEventHandler(async (event) => {
       routineId: assignments.routineId,
       title: sql<string>`json_extract(${assignments.snapshot}, '$.title')`,
       athleteId: assignments.athleteId,
-      athleteName: users.name,
+      athleteName,
     }).from(assignments)
       .innerJoin(users, eq(users.id, assignments.athleteId))
       .where(matches)
-      .orderBy(asc(assignments.date), asc(users.name), asc(assignments.id))
+      .orderBy(asc(assignments.date), asc(athleteName), asc(assignments.id))
       .limit(UPCOMING_LIMIT),
     db.select({ total: count() }).from(assignments).where(matches),
   ])

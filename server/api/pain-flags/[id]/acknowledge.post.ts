@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm'
 import { idParamsSchema } from '#shared/schemas/common'
 import { acknowledgePainFlagSchema } from '#shared/schemas/insights'
-import { painFlags, users } from '../../../db/schema'
+import { memberships, painFlags, users } from '../../../db/schema'
 
 /** Marks a flag as seen, with an optional reply the athlete reads on their progress page. Repeating it updates the reply. */
 export default defineEventHandler(async (event) => {
@@ -16,8 +16,11 @@ export default defineEventHandler(async (event) => {
       .returning({ athleteId: painFlags.athleteId, area: painFlags.area, pain: painFlags.pain })
     if (!updated) notFound('No such pain flag')
     // A reply is worth a message of its own: the athlete may not open the app before their next session.
+    // Someone who has left the team gets nothing from it.
     if (reply) {
-      const [athlete] = await tx.select({ email: users.email }).from(users).where(eq(users.id, updated.athleteId)).limit(1)
+      const [athlete] = await tx.select({ email: users.email }).from(users)
+        .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.teamId, caller.teamId)))
+        .where(eq(users.id, updated.athleteId)).limit(1)
       if (athlete) {
         await enqueueEmail(tx, {
           to: athlete.email,
