@@ -5,31 +5,10 @@ import type { ExerciseCaution } from '#shared/types/domain'
 import type { BlockKind } from '#shared/utils/vocabulary'
 import { buildTimeline } from '#shared/utils/timeline'
 import { MAX_NESTING, routineStepsSchema, type RoutineStep } from '#shared/schemas/routine-steps'
-import {
-  canIndent as canIndentStep,
-  canMoveDown as canShiftDown,
-  canMoveUp as canShiftUp,
-  canOutdent as canOutdentStep,
-  clone,
-  indentStep,
-  insertStep,
-  locate,
-  locatePath,
-  makeBlock,
-  makeRepeat,
-  makeSets,
-  moveStep,
-  outdentStep,
-  patchStep,
-  placeOf as placeOfStep,
-  removeStep as removeStepFrom,
-  ROOT_LIST,
-  shiftStep,
-  type StepPlace,
-  withFreshIds,
-} from '#shared/utils/step-tree'
+import * as tree from '#shared/utils/step-tree'
+import type { StepPlace } from '#shared/utils/step-tree'
 
-export const ROOT = ROOT_LIST
+export const ROOT = tree.ROOT_LIST
 export const HISTORY_LIMIT = 100
 
 export interface DraftExercise {
@@ -168,19 +147,19 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
     return true
   }
 
-  const placeOf = (id: string): StepPlace | null => placeOfStep(steps.value, id)
+  const placeOf = (id: string): StepPlace | null => tree.placeOf(steps.value, id)
 
   function addStep(step: RoutineStep, listId = ROOT, index?: number) {
-    return edit(insertStep(steps.value, step, listId, MAX_NESTING, index)) ? step.id : null
+    return edit(tree.insertStep(steps.value, step, listId, MAX_NESTING, index)) ? step.id : null
   }
-  const addBlock = (kind: BlockKind = 'work', listId = ROOT) => addStep(makeBlock(kind), listId)
-  const addSets = (exerciseId = 0, listId = ROOT) => addStep(makeSets(exerciseId), listId)
-  const addRepeat = (listId = ROOT, times = 4) => addStep(makeRepeat(times), listId)
+  const addBlock = (kind: BlockKind = 'work', listId = ROOT) => addStep(tree.makeBlock(kind), listId)
+  const addSets = (exerciseId = 0, listId = ROOT) => addStep(tree.makeSets(exerciseId), listId)
+  const addRepeat = (listId = ROOT, times = 4) => addStep(tree.makeRepeat(times), listId)
 
   function duplicateStep(id: string) {
-    const found = locate(steps.value, id)
+    const found = tree.locate(steps.value, id)
     if (!found) return null
-    return addStep(withFreshIds(found.step), found.parent?.id ?? ROOT, found.index + 1)
+    return addStep(tree.withFreshIds(found.step), found.parent?.id ?? ROOT, found.index + 1)
   }
 
   /**
@@ -188,24 +167,24 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
    * A `null` value removes an optional field.
    */
   const updateStep = (id: string, patch: Record<string, unknown>, coalesceKey?: string) =>
-    edit(patchStep(steps.value, id, patch), coalesceKey ? `${id}:${coalesceKey}` : undefined)
-  const removeStep = (id: string) => edit(removeStepFrom(steps.value, id))
+    edit(tree.patchStep(steps.value, id, patch), coalesceKey ? `${id}:${coalesceKey}` : undefined)
+  const removeStep = (id: string) => edit(tree.removeStep(steps.value, id))
 
-  const canMoveUp = (id: string) => canShiftUp(steps.value, id)
-  const canMoveDown = (id: string) => canShiftDown(steps.value, id)
-  const canIndent = (id: string) => canIndentStep(steps.value, id, MAX_NESTING)
-  const canOutdent = (id: string) => canOutdentStep(steps.value, id)
-  const moveUp = (id: string) => edit(shiftStep(steps.value, id, -1))
-  const moveDown = (id: string) => edit(shiftStep(steps.value, id, 1))
+  const canMoveUp = (id: string) => tree.canMoveUp(steps.value, id)
+  const canMoveDown = (id: string) => tree.canMoveDown(steps.value, id)
+  const canIndent = (id: string) => tree.canIndent(steps.value, id, MAX_NESTING)
+  const canOutdent = (id: string) => tree.canOutdent(steps.value, id)
+  const moveUp = (id: string) => edit(tree.shiftStep(steps.value, id, -1))
+  const moveDown = (id: string) => edit(tree.shiftStep(steps.value, id, 1))
   /** Moves a step into the repeat just above it, as that repeat's last step. */
-  const indent = (id: string) => edit(indentStep(steps.value, id, MAX_NESTING))
+  const indent = (id: string) => edit(tree.indentStep(steps.value, id, MAX_NESTING))
   /** Moves a step out of its repeat, to just after that repeat. */
-  const outdent = (id: string) => edit(outdentStep(steps.value, id))
+  const outdent = (id: string) => edit(tree.outdentStep(steps.value, id))
   /**
    * A drag from one list position to another (lists are the routine or a repeat's steps). `to.index` is
    * the position in the target list once the step has left its old place, as the drag library reports it.
    */
-  const move = (from: StepPlace, to: StepPlace) => edit(moveStep(steps.value, from, to, MAX_NESTING))
+  const move = (from: StepPlace, to: StepPlace) => edit(tree.moveStep(steps.value, from, to, MAX_NESTING))
 
   function rememberExercise(exercise: DraftExercise) {
     exercises.value = { ...exercises.value, [exercise.id]: exercise }
@@ -219,7 +198,7 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
   const stepErrors = computed(() => {
     const errors: Record<string, FieldMessages> = {}
     const add = (path: (string | number)[], message: string) => {
-      const place = locatePath(steps.value, path)
+      const place = tree.locatePath(steps.value, path)
       if (!place) return
       errors[place.stepId] ??= {}
       errors[place.stepId]![place.field] ??= message
@@ -235,14 +214,14 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
   const routineErrors = computed(() => {
     const errors: FieldMessages = {}
     for (const [key, message] of Object.entries(serverErrors.value)) {
-      if (!key.startsWith('steps.') || !locatePath(steps.value, key.split('.'))) errors[key] ??= message
+      if (!key.startsWith('steps.') || !tree.locatePath(steps.value, key.split('.'))) errors[key] ??= message
     }
     if (!metaValidation.value.success) {
       for (const issue of metaValidation.value.error.issues) errors[issue.path.join('.') || '_'] ??= issue.message
     }
     if (!stepValidation.value.success) {
       for (const issue of stepValidation.value.error.issues) {
-        if (!locatePath(steps.value, ['steps', ...issue.path as (string | number)[]])) errors.steps ??= issue.message
+        if (!tree.locatePath(steps.value, ['steps', ...issue.path as (string | number)[]])) errors.steps ??= issue.message
       }
     }
     return errors
@@ -272,7 +251,7 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
   const totals = computed(() => timeline.value?.totals ?? null)
 
   function payload() {
-    return clone({ ...content(), ...(version.value ? { version: version.value } : {}) })
+    return tree.clone({ ...content(), ...(version.value ? { version: version.value } : {}) })
   }
 
   return {
