@@ -35,8 +35,6 @@ export interface LoadedRoutine extends RoutineDraftContent {
   exercises?: DraftExercise[]
 }
 
-export type { StepPlace }
-
 type FieldMessages = Record<string, string>
 
 const timingFields = new Set(['measure', 'perSet', 'seconds', 'meters', 'reps', 'by', 'times', 'sets', 'restSeconds', 'type', 'kind', 'skipLastRecovery'])
