@@ -1,14 +1,27 @@
 import { afterEach, describe, expect, it } from 'vitest'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { LibraryFilterBar, LibraryResults } from '#components'
+import type { ExerciseView } from '#shared/schemas/exercise'
 
 // The library's pieces write their choices into the address, which the page's fetch follows.
 afterEach(async () => {
   await useRouter().replace({ query: {} })
 })
 
-const exercise = (id: number, name: string) => ({
-  id, name, summary: `${name}, slowly`, category: 'strength' as const, equipment: ['step'], hasClip: id === 1, archivedAt: null, updatedAt: '2026-02-01T10:00:00.000Z',
+const exercise = (id: number, name: string): ExerciseView => ({
+  id,
+  name,
+  summary: `${name}, slowly`,
+  category: 'strength',
+  cues: [],
+  equipment: ['step'],
+  cautions: [],
+  hasClip: id === 1,
+  clip: null,
+  hasPoster: false,
+  archivedAt: null,
+  createdAt: '2026-01-10T10:00:00.000Z',
+  updatedAt: '2026-02-01T10:00:00.000Z',
 })
 
 describe('library filter bar', () => {
