@@ -1,6 +1,7 @@
 import { resolve } from 'node:path'
-import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3'
+import { ListObjectsV2Command } from '@aws-sdk/client-s3'
 import type { Client } from '@libsql/client'
+import { createObjectStoreClient, objectStoreSettingsFromEnv } from '../server/utils/object-store-client'
 
 /** The file behind a `file:` database URL; a libSQL server is backed up with its own tools. */
 export function localDatabaseFile(url: string) {
@@ -21,26 +22,13 @@ export async function checkIntegrity(client: Client) {
 }
 
 export function storeSettings() {
-  return {
-    endpoint: process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4569',
-    region: process.env.S3_REGION ?? 'us-east-1',
-    bucket: process.env.S3_BUCKET ?? 'switchback-media',
-    accessKeyId: process.env.S3_ACCESS_KEY_ID ?? 'S3RVER',
-    secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
-  }
+  return objectStoreSettingsFromEnv()
 }
 
 /** Every object in the bucket (key, size, ETag), page by page. */
 export async function listStoredObjects() {
   const settings = storeSettings()
-  const store = new S3Client({
-    endpoint: settings.endpoint,
-    region: settings.region,
-    forcePathStyle: true,
-    credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-  })
+  const store = createObjectStoreClient(settings)
   const objects: { key: string, size: number, etag: string | null }[] = []
   let token: string | undefined
   do {

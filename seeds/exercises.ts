@@ -1,8 +1,9 @@
 import { randomBytes } from 'node:crypto'
-import { HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import { HeadBucketCommand, PutObjectCommand } from '@aws-sdk/client-s3'
 import { and, eq, sql } from 'drizzle-orm'
 import { clipCues, exercises, mediaObjects } from '../server/db/schema'
 import { starterExercises, starterSlug } from '../server/starter/exercises'
+import { createObjectStoreClient, objectStoreSettingsFromEnv } from '../server/utils/object-store-client'
 import { CLIP_CUE_LIMITS } from '../shared/schemas/clip-cue'
 import type { SeedStep } from './context'
 import { figureStyles } from './figure'
@@ -10,19 +11,11 @@ import { renderFigureClip } from './figure-clip'
 import { exerciseMovements } from './movements'
 
 export function seedStorage() {
-  const endpoint = process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4569'
+  const settings = objectStoreSettingsFromEnv()
   return {
-    bucket: process.env.S3_BUCKET ?? 'switchback-media',
-    client: new S3Client({
-      endpoint,
-      region: process.env.S3_REGION ?? 'us-east-1',
-      credentials: { accessKeyId: process.env.S3_ACCESS_KEY_ID ?? 'S3RVER', secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? 'S3RVER' },
-      forcePathStyle: true,
-      requestChecksumCalculation: 'WHEN_REQUIRED',
-      responseChecksumValidation: 'WHEN_REQUIRED',
-      maxAttempts: 1,
-      requestHandler: { connectionTimeout: 2000, requestTimeout: 10_000 },
-    }),
+    bucket: settings.bucket,
+    endpoint: settings.endpoint,
+    client: createObjectStoreClient(settings, { maxAttempts: 1, connectionTimeoutMs: 2000, requestTimeoutMs: 10_000 }),
   }
 }
 
@@ -43,12 +36,12 @@ export const seedExercises: SeedStep = async ({ db, teamId, users, log }) => {
   }
   log(`exercises: ${starterExercises.length} in the starter library (${created} new)`)
 
-  const { client, bucket } = seedStorage()
+  const { client, bucket, endpoint } = seedStorage()
   try {
     await client.send(new HeadBucketCommand({ Bucket: bucket }))
   }
   catch (error) {
-    console.warn(`  warning: the object store (${process.env.S3_ENDPOINT ?? 'http://127.0.0.1:4569'}, bucket ${bucket}) cannot be reached, so demo clips were skipped: ${(error as Error).message || (error as Error).name}`)
+    console.warn(`  warning: the object store (${endpoint}, bucket ${bucket}) cannot be reached, so demo clips were skipped: ${(error as Error).message || (error as Error).name}`)
     client.destroy()
     return
   }

@@ -4,10 +4,11 @@ import { routineMetaSchema, type RoutineCategory } from '#shared/schemas/routine
 import type { ExerciseCaution } from '#shared/types/domain'
 import type { BlockKind } from '#shared/utils/vocabulary'
 import { buildTimeline } from '#shared/utils/timeline'
-import { MAX_NESTING, routineStepsSchema, type RepeatStep, type RoutineStep } from '#shared/schemas/routine-steps'
-import { clone, contains, locate, locatePath, makeBlock, makeRepeat, makeSets, repeatHeight, withFreshIds } from '#shared/utils/step-tree'
+import { MAX_NESTING, routineStepsSchema, type RoutineStep } from '#shared/schemas/routine-steps'
+import * as tree from '#shared/utils/step-tree'
+import type { StepPlace } from '#shared/utils/step-tree'
 
-export const ROOT = 'root'
+export const ROOT = tree.ROOT_LIST
 export const HISTORY_LIMIT = 100
 
 export interface DraftExercise {
@@ -32,12 +33,6 @@ export interface LoadedRoutine extends RoutineDraftContent {
   id: number | null
   version: number | null
   exercises?: DraftExercise[]
-}
-
-export interface StepPlace {
-  /** `ROOT` for the routine's own list, otherwise the id of the repeat holding the list. */
-  listId: string
-  index: number
 }
 
 type FieldMessages = Record<string, string>
@@ -141,143 +136,53 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
     }, `meta:${field}`)
   }
 
-  function listFor(listId: string): RoutineStep[] | null {
-    if (listId === ROOT) return steps.value
-    const found = locate(steps.value, listId)
-    return found?.step.type === 'repeat' ? found.step.steps : null
+  /** Applies a tree edit from shared/utils/step-tree.ts; a refused edit (null) leaves history alone. */
+  function edit(next: RoutineStep[] | null, coalesceKey?: string) {
+    if (!next) return false
+    commit(() => {
+      steps.value = next
+    }, coalesceKey)
+    return true
   }
 
-  function depthOfList(listId: string): number {
-    if (listId === ROOT) return 0
-    const found = locate(steps.value, listId)
-    return found ? found.depth + 1 : 0
-  }
-
-  const find = (id: string) => locate(steps.value, id)
-  const placeOf = (id: string): StepPlace | null => {
-    const found = find(id)
-    return found ? { listId: found.parent?.id ?? ROOT, index: found.index } : null
-  }
+  const placeOf = (id: string): StepPlace | null => tree.placeOf(steps.value, id)
 
   function addStep(step: RoutineStep, listId = ROOT, index?: number) {
-    const list = listFor(listId)
-    if (!list || depthOfList(listId) + repeatHeight(step) > MAX_NESTING) return null
-    commit(() => {
-      list.splice(index ?? list.length, 0, step)
-    })
-    return step.id
+    return edit(tree.insertStep(steps.value, step, listId, MAX_NESTING, index)) ? step.id : null
   }
-  const addBlock = (kind: BlockKind = 'work', listId = ROOT) => addStep(makeBlock(kind), listId)
-  const addSets = (exerciseId = 0, listId = ROOT) => addStep(makeSets(exerciseId), listId)
-  const addRepeat = (listId = ROOT, times = 4) => addStep(makeRepeat(times), listId)
+  const addBlock = (kind: BlockKind = 'work', listId = ROOT) => addStep(tree.makeBlock(kind), listId)
+  const addSets = (exerciseId = 0, listId = ROOT) => addStep(tree.makeSets(exerciseId), listId)
+  const addRepeat = (listId = ROOT, times = 4) => addStep(tree.makeRepeat(times), listId)
 
   function duplicateStep(id: string) {
-    const found = find(id)
+    const found = tree.locate(steps.value, id)
     if (!found) return null
-    return addStep(withFreshIds(found.step), found.parent?.id ?? ROOT, found.index + 1)
+    return addStep(tree.withFreshIds(found.step), found.parent?.id ?? ROOT, found.index + 1)
   }
 
   /**
    * Changes fields of a step. `coalesceKey` merges a run of edits to one field (typing) into one undo step.
    * A `null` value removes an optional field.
    */
-  function updateStep(id: string, patch: Record<string, unknown>, coalesceKey?: string) {
-    const found = find(id)
-    if (!found) return false
-    commit(() => {
-      const target = found.step as unknown as Record<string, unknown>
-      for (const [key, value] of Object.entries(patch)) {
-        if (key === 'id' || key === 'type') continue
-        if (value === null || value === undefined) Reflect.deleteProperty(target, key)
-        else target[key] = clone(value)
-      }
-    }, coalesceKey ? `${id}:${coalesceKey}` : undefined)
-    return true
-  }
+  const updateStep = (id: string, patch: Record<string, unknown>, coalesceKey?: string) =>
+    edit(tree.patchStep(steps.value, id, patch), coalesceKey ? `${id}:${coalesceKey}` : undefined)
+  const removeStep = (id: string) => edit(tree.removeStep(steps.value, id))
 
-  function removeStep(id: string) {
-    const found = find(id)
-    if (!found) return false
-    commit(() => {
-      found.list.splice(found.index, 1)
-    })
-    return true
-  }
-
-  const canMoveUp = (id: string) => (find(id)?.index ?? 0) > 0
-  const canMoveDown = (id: string) => {
-    const found = find(id)
-    return Boolean(found && found.index < found.list.length - 1)
-  }
-  function canIndent(id: string) {
-    const found = find(id)
-    const above = found && found.index > 0 ? found.list[found.index - 1] : undefined
-    return Boolean(found && above?.type === 'repeat' && found.depth + 1 + repeatHeight(found.step) <= MAX_NESTING)
-  }
-  const canOutdent = (id: string) => Boolean(find(id)?.parent)
-
-  function moveUp(id: string) {
-    const found = find(id)
-    if (!found || found.index === 0) return false
-    commit(() => {
-      const [step] = found.list.splice(found.index, 1)
-      found.list.splice(found.index - 1, 0, step!)
-    })
-    return true
-  }
-
-  function moveDown(id: string) {
-    const found = find(id)
-    if (!found || found.index >= found.list.length - 1) return false
-    commit(() => {
-      const [step] = found.list.splice(found.index, 1)
-      found.list.splice(found.index + 1, 0, step!)
-    })
-    return true
-  }
-
+  const canMoveUp = (id: string) => tree.canMoveUp(steps.value, id)
+  const canMoveDown = (id: string) => tree.canMoveDown(steps.value, id)
+  const canIndent = (id: string) => tree.canIndent(steps.value, id, MAX_NESTING)
+  const canOutdent = (id: string) => tree.canOutdent(steps.value, id)
+  const moveUp = (id: string) => edit(tree.shiftStep(steps.value, id, -1))
+  const moveDown = (id: string) => edit(tree.shiftStep(steps.value, id, 1))
   /** Moves a step into the repeat just above it, as that repeat's last step. */
-  function indent(id: string) {
-    if (!canIndent(id)) return false
-    const found = find(id)!
-    const above = found.list[found.index - 1] as RepeatStep
-    commit(() => {
-      const [step] = found.list.splice(found.index, 1)
-      above.steps.push(step!)
-    })
-    return true
-  }
-
+  const indent = (id: string) => edit(tree.indentStep(steps.value, id, MAX_NESTING))
   /** Moves a step out of its repeat, to just after that repeat. */
-  function outdent(id: string) {
-    const found = find(id)
-    if (!found?.parent) return false
-    const parentPlace = find(found.parent.id)!
-    commit(() => {
-      const [step] = found.list.splice(found.index, 1)
-      parentPlace.list.splice(parentPlace.index + 1, 0, step!)
-    })
-    return true
-  }
-
+  const outdent = (id: string) => edit(tree.outdentStep(steps.value, id))
   /**
    * A drag from one list position to another (lists are the routine or a repeat's steps). `to.index` is
    * the position in the target list once the step has left its old place, as the drag library reports it.
    */
-  function move(from: StepPlace, to: StepPlace) {
-    const source = listFor(from.listId)
-    const target = listFor(to.listId)
-    const step = source?.[from.index]
-    if (!source || !target || !step) return false
-    if (to.listId === step.id || (to.listId !== ROOT && contains(step, to.listId))) return false
-    if (depthOfList(to.listId) + repeatHeight(step) > MAX_NESTING) return false
-    if (from.listId === to.listId && from.index === to.index) return false
-    commit(() => {
-      source.splice(from.index, 1)
-      target.splice(Math.min(Math.max(to.index, 0), target.length), 0, step)
-    })
-    return true
-  }
+  const move = (from: StepPlace, to: StepPlace) => edit(tree.moveStep(steps.value, from, to, MAX_NESTING))
 
   function rememberExercise(exercise: DraftExercise) {
     exercises.value = { ...exercises.value, [exercise.id]: exercise }
@@ -291,7 +196,7 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
   const stepErrors = computed(() => {
     const errors: Record<string, FieldMessages> = {}
     const add = (path: (string | number)[], message: string) => {
-      const place = locatePath(steps.value, path)
+      const place = tree.locatePath(steps.value, path)
       if (!place) return
       errors[place.stepId] ??= {}
       errors[place.stepId]![place.field] ??= message
@@ -307,14 +212,14 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
   const routineErrors = computed(() => {
     const errors: FieldMessages = {}
     for (const [key, message] of Object.entries(serverErrors.value)) {
-      if (!key.startsWith('steps.') || !locatePath(steps.value, key.split('.'))) errors[key] ??= message
+      if (!key.startsWith('steps.') || !tree.locatePath(steps.value, key.split('.'))) errors[key] ??= message
     }
     if (!metaValidation.value.success) {
       for (const issue of metaValidation.value.error.issues) errors[issue.path.join('.') || '_'] ??= issue.message
     }
     if (!stepValidation.value.success) {
       for (const issue of stepValidation.value.error.issues) {
-        if (!locatePath(steps.value, ['steps', ...issue.path as (string | number)[]])) errors.steps ??= issue.message
+        if (!tree.locatePath(steps.value, ['steps', ...issue.path as (string | number)[]])) errors.steps ??= issue.message
       }
     }
     return errors
@@ -344,7 +249,7 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
   const totals = computed(() => timeline.value?.totals ?? null)
 
   function payload() {
-    return clone({ ...content(), ...(version.value ? { version: version.value } : {}) })
+    return tree.clone({ ...content(), ...(version.value ? { version: version.value } : {}) })
   }
 
   return {

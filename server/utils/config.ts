@@ -1,16 +1,17 @@
 import { z } from 'zod'
+import { OBJECT_STORE_DEFAULTS } from './object-store-client'
 
 const configSchema = z.object({
   databaseUrl: z.string().min(1).default('file:.data/switchback.db'),
   appUrl: z.string().url().default('http://localhost:3000'),
   smtpUrl: z.string().default('smtp://127.0.0.1:1025'),
   mailFrom: z.string().default('Switchback <no-reply@switchback.local>'),
-  s3Endpoint: z.string().default('http://127.0.0.1:4569'),
+  s3Endpoint: z.string().default(OBJECT_STORE_DEFAULTS.endpoint),
   s3PublicEndpoint: z.string().optional(),
-  s3Region: z.string().default('us-east-1'),
-  s3Bucket: z.string().default('switchback-media'),
-  s3AccessKeyId: z.string().default('S3RVER'),
-  s3SecretAccessKey: z.string().default('S3RVER'),
+  s3Region: z.string().default(OBJECT_STORE_DEFAULTS.region),
+  s3Bucket: z.string().default(OBJECT_STORE_DEFAULTS.bucket),
+  s3AccessKeyId: z.string().default(OBJECT_STORE_DEFAULTS.accessKeyId),
+  s3SecretAccessKey: z.string().default(OBJECT_STORE_DEFAULTS.secretAccessKey),
   outboxIntervalMs: z.coerce.number().int().positive().default(2000),
   outboxBackoffMs: z.coerce.number().int().positive().default(5000),
   mediaSweepIntervalMs: z.coerce.number().int().positive().default(10 * 60_000),

@@ -6,8 +6,7 @@ import {
   HeadBucketCommand,
   HeadObjectCommand,
   PutObjectCommand,
-  S3Client,
-  type S3ClientConfig,
+  type S3Client,
 } from '@aws-sdk/client-s3'
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner'
 import { mediaExtensions } from '#shared/schemas/exercise'
@@ -17,20 +16,12 @@ export const PLAYBACK_URL_SECONDS = 15 * 60
 
 let clients: { server: S3Client, presign: S3Client } | undefined
 
-function clientConfig(endpoint: string): S3ClientConfig {
+function clientFor(endpoint: string) {
   const config = useServerConfig()
-  return {
-    endpoint,
-    region: config.s3Region,
-    credentials: { accessKeyId: config.s3AccessKeyId, secretAccessKey: config.s3SecretAccessKey },
-    forcePathStyle: true,
-    // Without these, s3rver stores streamed uploads with chunk framing inside the object and
-    // presigned URLs carry the checksum of an empty body.
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-    maxAttempts: 2,
-    requestHandler: { connectionTimeout: 3000, requestTimeout: 15_000 },
-  }
+  return createObjectStoreClient(
+    { endpoint, region: config.s3Region, accessKeyId: config.s3AccessKeyId, secretAccessKey: config.s3SecretAccessKey },
+    { maxAttempts: 2, connectionTimeoutMs: 3000, requestTimeoutMs: 15_000 },
+  )
 }
 
 /**
@@ -40,8 +31,8 @@ function clientConfig(endpoint: string): S3ClientConfig {
 export function useObjectStore() {
   if (!clients) {
     const config = useServerConfig()
-    const server = new S3Client(clientConfig(config.s3Endpoint))
-    const presign = config.s3PublicEndpoint ? new S3Client(clientConfig(config.s3PublicEndpoint)) : server
+    const server = clientFor(config.s3Endpoint)
+    const presign = config.s3PublicEndpoint ? clientFor(config.s3PublicEndpoint) : server
     clients = { server, presign }
   }
   return { ...clients, bucket: useServerConfig().s3Bucket }

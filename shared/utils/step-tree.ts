@@ -90,3 +90,143 @@ export function locatePath(steps: RoutineStep[], path: (string | number)[]): { s
   }
   return { stepId: step.id, field: rest.length ? rest.join('.') : '_' }
 }
+
+// Edits of the tree. Each takes the steps and gives back a new tree (the input is left as it was),
+// or null when the edit is not allowed; the builder's store wraps them with its undo history.
+
+/** The id that names the routine's own top-level list (any other list is named by its repeat's id). */
+export const ROOT_LIST = 'root'
+
+export interface StepPlace {
+  /** `ROOT_LIST` for the routine's own list, otherwise the id of the repeat holding the list. */
+  listId: string
+  index: number
+}
+
+/** The list a list id names: the routine's own, or a repeat's steps; null for anything else. */
+export function listAt(steps: RoutineStep[], listId: string): RoutineStep[] | null {
+  if (listId === ROOT_LIST) return steps
+  const found = locate(steps, listId)
+  return found?.step.type === 'repeat' ? found.step.steps : null
+}
+
+/** How many repeats hold the steps of a list (0 for the routine's own). */
+export function listDepth(steps: RoutineStep[], listId: string): number {
+  if (listId === ROOT_LIST) return 0
+  const found = locate(steps, listId)
+  return found ? found.depth + 1 : 0
+}
+
+export function placeOf(steps: RoutineStep[], id: string): StepPlace | null {
+  const found = locate(steps, id)
+  return found ? { listId: found.parent?.id ?? ROOT_LIST, index: found.index } : null
+}
+
+export const canMoveUp = (steps: RoutineStep[], id: string) => (locate(steps, id)?.index ?? 0) > 0
+export function canMoveDown(steps: RoutineStep[], id: string) {
+  const found = locate(steps, id)
+  return Boolean(found && found.index < found.list.length - 1)
+}
+export function canIndent(steps: RoutineStep[], id: string, maxNesting: number) {
+  const found = locate(steps, id)
+  const above = found && found.index > 0 ? found.list[found.index - 1] : undefined
+  return Boolean(found && above?.type === 'repeat' && found.depth + 1 + repeatHeight(found.step) <= maxNesting)
+}
+export const canOutdent = (steps: RoutineStep[], id: string) => Boolean(locate(steps, id)?.parent)
+
+/** Runs an edit on a copy of the tree; the edit answers false to refuse. */
+function edited(steps: RoutineStep[], edit: (copy: RoutineStep[]) => boolean): RoutineStep[] | null {
+  const copy = clone(steps)
+  return edit(copy) ? copy : null
+}
+
+/** Puts a step into a list (at its end unless an index is given), if the nesting stays within `maxNesting`. */
+export function insertStep(steps: RoutineStep[], step: RoutineStep, listId: string, maxNesting: number, index?: number) {
+  return edited(steps, (copy) => {
+    const list = listAt(copy, listId)
+    if (!list || listDepth(copy, listId) + repeatHeight(step) > maxNesting) return false
+    list.splice(index ?? list.length, 0, clone(step))
+    return true
+  })
+}
+
+export function removeStep(steps: RoutineStep[], id: string) {
+  return edited(steps, (copy) => {
+    const found = locate(copy, id)
+    if (!found) return false
+    found.list.splice(found.index, 1)
+    return true
+  })
+}
+
+/**
+ * Sets fields of a step (never its id or type); a `null` or `undefined` value removes an optional field.
+ */
+export function patchStep(steps: RoutineStep[], id: string, patch: Record<string, unknown>) {
+  return edited(steps, (copy) => {
+    const found = locate(copy, id)
+    if (!found) return false
+    const target = found.step as unknown as Record<string, unknown>
+    for (const [key, value] of Object.entries(patch)) {
+      if (key === 'id' || key === 'type') continue
+      if (value === null || value === undefined) Reflect.deleteProperty(target, key)
+      else target[key] = clone(value)
+    }
+    return true
+  })
+}
+
+/** Moves a step one place up (-1) or down (+1) within its own list. */
+export function shiftStep(steps: RoutineStep[], id: string, by: -1 | 1) {
+  return edited(steps, (copy) => {
+    const found = locate(copy, id)
+    if (!found || found.index + by < 0 || found.index + by >= found.list.length) return false
+    const [step] = found.list.splice(found.index, 1)
+    found.list.splice(found.index + by, 0, step!)
+    return true
+  })
+}
+
+/** Moves a step into the repeat just above it, as that repeat's last step. */
+export function indentStep(steps: RoutineStep[], id: string, maxNesting: number) {
+  if (!canIndent(steps, id, maxNesting)) return null
+  return edited(steps, (copy) => {
+    const found = locate(copy, id)!
+    const above = found.list[found.index - 1] as RepeatStep
+    const [step] = found.list.splice(found.index, 1)
+    above.steps.push(step!)
+    return true
+  })
+}
+
+/** Moves a step out of its repeat, to just after that repeat. */
+export function outdentStep(steps: RoutineStep[], id: string) {
+  return edited(steps, (copy) => {
+    const found = locate(copy, id)
+    if (!found?.parent) return false
+    const parentPlace = locate(copy, found.parent.id)!
+    const [step] = found.list.splice(found.index, 1)
+    parentPlace.list.splice(parentPlace.index + 1, 0, step!)
+    return true
+  })
+}
+
+/**
+ * A drag from one list position to another. `to.index` is the position in the target list once the
+ * step has left its old place, as the drag library reports it. Refuses a repeat dropped into itself,
+ * nesting beyond `maxNesting` and a drop on the same place.
+ */
+export function moveStep(steps: RoutineStep[], from: StepPlace, to: StepPlace, maxNesting: number) {
+  return edited(steps, (copy) => {
+    const source = listAt(copy, from.listId)
+    const target = listAt(copy, to.listId)
+    const step = source?.[from.index]
+    if (!source || !target || !step) return false
+    if (to.listId === step.id || (to.listId !== ROOT_LIST && contains(step, to.listId))) return false
+    if (listDepth(copy, to.listId) + repeatHeight(step) > maxNesting) return false
+    if (from.listId === to.listId && from.index === to.index) return false
+    source.splice(from.index, 1)
+    target.splice(Math.min(Math.max(to.index, 0), target.length), 0, step)
+    return true
+  })
+}
