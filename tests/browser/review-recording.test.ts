@@ -97,13 +97,26 @@ describe('recording a clip in the page', () => {
     const queue = coachPage.getByTestId('review-queue').getByRole('link')
     await expect.poll(() => queue.allTextContents()).toEqual([expect.stringContaining('Cai Penhallow')])
 
-    // The coach records a reply with the fake camera; sending it answers the review and the count drops.
+    // The recorded clip says how long it is and can be sought, so a comment can land at a moment in it.
     await queue.first().click()
     await coachPage.waitForURL(/\/reviews\/\d+$/)
+    const seen = await coachPage.getByTestId('review-clip').evaluate((element: HTMLVideoElement) => new Promise<{ duration: number, at: number }>((resolve) => {
+      const go = () => {
+        element.addEventListener('seeked', () => resolve({ duration: element.duration, at: element.currentTime }), { once: true })
+        element.currentTime = 1
+      }
+      if (element.readyState >= 1) go()
+      else element.addEventListener('loadedmetadata', go, { once: true })
+    }))
+    expect(seen.duration).toBeGreaterThan(1.5)
+    expect(seen.duration).toBeLessThan(5)
+    expect(seen.at).toBeCloseTo(1, 1)
+
+    // The coach records a reply with the fake camera; sending it answers the review and the count drops.
     await coachPage.getByRole('button', { name: 'Record with the camera' }).click()
     await coachPage.getByRole('timer').filter({ hasText: /Recording 0:0[2-9] of 1:00/ }).waitFor()
     await coachPage.getByRole('button', { name: 'Stop recording' }).click()
-    await coachPage.getByRole('button', { name: 'Send the reply clip and mark answered' }).click()
+    await coachPage.getByRole('button', { name: 'Send the reply clip' }).click()
     await coachPage.getByLabel('The coach\'s reply clip').waitFor({ timeout: 30_000 })
     await expect.poll(() => reviewsLink.textContent()).toMatch(/1\s*, 1 clip waiting for an answer/)
     const answered = await reviewOf(coachContext, coachPage.url())
