@@ -47,7 +47,7 @@ async function reviewOf(context: BrowserContext, url: string) {
 }
 
 describe('recording a clip in the page', () => {
-  it('an athlete records about 2 s and sends it; the coach sees the count, filters by squad and records a reply', async () => {
+  it('an athlete records about 2 s and sends it; the coach sees the count, filters by squad, records a reply and sets how long clips are kept', async () => {
     const team = await registerCoach(stack)
     const road = await team.coach.post<{ id: number }>('/api/squads', { name: 'Road' })
     const trail = await team.coach.post<{ id: number }>('/api/squads', { name: 'Trail' })
@@ -63,6 +63,8 @@ describe('recording a clip in the page', () => {
     await page.getByRole('button', { name: 'Stop recording' }).click()
     await page.getByTestId('recording-preview').waitFor()
     await page.getByRole('button', { name: 'Record again' }).waitFor()
+    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Record again')
+    await page.screenshot({ path: screenshotPath('review-recorded-athlete-phone'), fullPage: true })
     await page.getByLabel('Your question (optional)').fill('Am I leaning from the ankles?')
     await page.getByRole('button', { name: 'Send for review' }).click()
     await page.waitForURL(/\/reviews\/\d+$/, { timeout: 30_000 })
@@ -130,6 +132,20 @@ describe('recording a clip in the page', () => {
     const phonePage = await phoneContext.newPage()
     await phonePage.goto(`${stack.url}/team`)
     await expect.poll(() => phonePage.getByRole('button', { name: /Menu/ }).textContent()).toMatch(/1\s*, 1 waiting/)
+
+    // The head coach sets how long clips are kept, on the team screen.
+    const keep = phonePage.getByLabel('Keep form-review clips for (days)')
+    await expect.poll(() => keep.inputValue()).toBe('180')
+    await keep.fill('3')
+    await phonePage.getByRole('button', { name: 'Save settings' }).click()
+    await phonePage.getByRole('alert').filter({ hasText: 'Keep clips at least 7 days' }).waitFor()
+    await keep.fill('90')
+    await phonePage.getByRole('button', { name: 'Save settings' }).click()
+    await phonePage.getByText('Team settings saved.').waitFor()
+    const saved = await phoneContext.request.get(`${stack.url}/api/team`)
+    expect((await saved.json() as { team: { reviewRetentionDays: number } }).team.reviewRetentionDays).toBe(90)
+    await keep.scrollIntoViewIfNeeded()
+    await phonePage.screenshot({ path: screenshotPath('team-review-retention-phone') })
     await phoneContext.close()
   })
 
