@@ -1,6 +1,6 @@
 import { chooseRecordingType, clipTypeOfRecording, recordingFileName, recordingStopSeconds } from '#shared/utils/recording'
 
-export type RecorderPhase = 'idle' | 'starting' | 'recording' | 'recorded' | 'refused'
+export type RecorderPhase = 'idle' | 'starting' | 'recording' | 'finishing' | 'recorded' | 'refused'
 
 /** Keeps a recording small enough for the 100 MB limit: about 19 MB a minute. */
 const VIDEO_BITS_PER_SECOND = 2_500_000
@@ -11,6 +11,24 @@ function cameraProblem(error: unknown) {
   if (name === 'NotFoundError' || name === 'OverconstrainedError') return 'No camera was found on this device. Pick a video file instead.'
   if (name === 'NotReadableError') return 'The camera is busy in another app. Close it and try again, or pick a video file.'
   return 'The camera could not be started. Pick a video file instead.'
+}
+
+/**
+ * Chromium's recorder writes WebM without its length (it streams as it goes), so a player reading the clip
+ * from the store in ranges may show no duration (`Infinity`) and a coach could not reliably seek to a moment.
+ * fix-webm-duration (23 kB, loaded only once a clip was recorded) writes the measured length into the
+ * header; for other containers, or if it fails, the recording goes as it is (the server still finds its
+ * length by walking the packets).
+ */
+async function withLength(blob: Blob, milliseconds: number): Promise<Blob> {
+  if (!blob.type.startsWith('video/webm')) return blob
+  try {
+    const { default: fixWebmDuration } = await import('fix-webm-duration')
+    return await fixWebmDuration(blob, milliseconds, { logger: false })
+  }
+  catch {
+    return blob
+  }
 }
 
 /**
@@ -74,6 +92,7 @@ export function useCameraRecorder(options: { limitSeconds: number, withSound: bo
     }
     const mimeType = chooseRecordingType(type => MediaRecorder.isTypeSupported(type))
     const chunks: Blob[] = []
+    let startedAt = 0
     try {
       recorder = new MediaRecorder(stream.value, { ...(mimeType ? { mimeType } : {}), videoBitsPerSecond: VIDEO_BITS_PER_SECOND })
     }
@@ -86,16 +105,19 @@ export function useCameraRecorder(options: { limitSeconds: number, withSound: bo
     recorder.ondataavailable = (event) => {
       if (event.data.size) chunks.push(event.data)
     }
-    recorder.onstop = () => {
+    recorder.onstop = async () => {
       release()
+      phase.value = 'finishing'
       const written = recorder?.mimeType || mimeType
       const type = clipTypeOfRecording(written)
-      const blob = new Blob(chunks, { type: written })
+      const blob = await withLength(new Blob(chunks, { type: written }), performance.now() - startedAt)
+      // Discarded (or started again) while the length was being written.
+      if (phase.value !== 'finishing') return
       clip.value = new File([blob], recordingFileName(type, new Date()), { type })
       clipUrl.value = URL.createObjectURL(blob)
       phase.value = 'recorded'
     }
-    const startedAt = performance.now()
+    startedAt = performance.now()
     const stopAt = recordingStopSeconds(options.limitSeconds)
     ticker = setInterval(() => {
       elapsed.value = (performance.now() - startedAt) / 1000

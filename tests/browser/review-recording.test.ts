@@ -64,6 +64,13 @@ describe('recording a clip in the page', () => {
     await page.getByTestId('recording-preview').waitFor()
     await page.getByRole('button', { name: 'Record again' }).waitFor()
     expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Record again')
+    // The recording was rewritten with its length in the header (Chromium's own WebM has none: Infinity).
+    const previewSeconds = await page.getByTestId('recording-preview').evaluate((element: HTMLVideoElement) => new Promise<number>((resolve) => {
+      if (element.readyState >= 1) resolve(element.duration)
+      else element.addEventListener('loadedmetadata', () => resolve(element.duration), { once: true })
+    }))
+    expect(previewSeconds).toBeGreaterThan(1.5)
+    expect(previewSeconds).toBeLessThan(5)
     await page.screenshot({ path: screenshotPath('review-recorded-athlete-phone'), fullPage: true })
     await page.getByLabel('Your question (optional)').fill('Am I leaning from the ankles?')
     await page.getByRole('button', { name: 'Send for review' }).click()
