@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext } from 'playwright-core'
+import { ALL_FORMATS, BufferSource, Input } from 'mediabunny'
 import { makeDemoClip } from '../../seeds/clip'
 import { fakeCameraArgs, launchBrowser, newContext, screenshotPath } from '../support/browser'
 import { startStack, type Stack } from '../support/stack'
@@ -38,7 +39,7 @@ async function signedIn(email: string, size: 'phone' | 'desktop') {
   return context
 }
 
-interface Review { id: number, durationSeconds: number | null, reply: { url: string } | null, status: string }
+interface Review { id: number, durationSeconds: number | null, clip: { url: string }, reply: { url: string } | null, status: string }
 
 async function reviewOf(context: BrowserContext, url: string) {
   const response = await context.request.get(`${stack.url}/api${new URL(url).pathname}`)
@@ -64,7 +65,7 @@ describe('recording a clip in the page', () => {
     await page.getByTestId('recording-preview').waitFor()
     await page.getByRole('button', { name: 'Record again' }).waitFor()
     expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Record again')
-    // The recording was rewritten with its length in the header (Chromium's own WebM has none: Infinity).
+    // The preview plays the recording back: about 2 s.
     const previewSeconds = await page.getByTestId('recording-preview').evaluate((element: HTMLVideoElement) => new Promise<number>((resolve) => {
       if (element.readyState >= 1) resolve(element.duration)
       else element.addEventListener('loadedmetadata', () => resolve(element.duration), { once: true })
@@ -79,6 +80,14 @@ describe('recording a clip in the page', () => {
     // The server read the length from the recorded WebM itself.
     expect(recorded.durationSeconds).toBeGreaterThan(1.5)
     expect(recorded.durationSeconds).toBeLessThan(5)
+    // And the stored file carries its length in the header (Chromium's recorder writes none), so a player
+    // reading it from the store in ranges knows how long it is.
+    const stored = await fetch(recorded.clip.url)
+    const header = new Input({ source: new BufferSource(await stored.arrayBuffer()), formats: ALL_FORMATS })
+    const headerSeconds = await header.getDurationFromMetadata()
+    header.dispose()
+    expect(headerSeconds).toBeGreaterThan(1.5)
+    expect(headerSeconds).toBeLessThan(5)
     await athleteContext.close()
 
     // Another athlete, in the other squad, picks a file.
