@@ -144,12 +144,14 @@ export default defineNuxtConfig({
       strictTransportSecurity: false,
       xContentTypeOptions: 'nosniff',
       xFrameOptions: 'DENY',
+      // Camera and microphone for this origin only: form-review clips are recorded in the page. Not per
+      // route: after a client-side navigation the policy of the first page loaded still applies.
       permissionsPolicy: {
-        'camera': [],
+        'camera': ['self'],
         'display-capture': [],
         'fullscreen': ['self'],
         'geolocation': [],
-        'microphone': [],
+        'microphone': ['self'],
       },
     },
   },

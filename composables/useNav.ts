@@ -14,6 +14,7 @@ export interface NavLink {
 export function useNav() {
   const { session, loggedIn } = useUserSession()
   const openPainFlags = useOpenPainFlagCount()
+  const openReviews = useOpenReviewCount()
   const route = useRoute()
   const isCoach = computed(() => isCoachRole(session.value?.role))
   const links = computed<NavLink[]>(() => {
@@ -26,7 +27,7 @@ export function useNav() {
         { to: '/planner', label: 'Planner', icon: CalendarDays },
         { to: '/blocks', label: 'Blocks', icon: CalendarRange },
         { to: '/insights', label: 'Insights', icon: ChartLine, badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
-        { to: '/reviews', label: 'Reviews', icon: Clapperboard },
+        { to: '/reviews', label: 'Reviews', icon: Clapperboard, badge: openReviews.value ? { count: openReviews.value, label: plural(openReviews.value, 'clip waiting for an answer', 'clips waiting for an answer') } : undefined },
         { to: '/team', label: 'Team', icon: Users },
       ]
     }

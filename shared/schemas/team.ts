@@ -13,13 +13,23 @@ export const timeZoneSchema = z.string({ error: 'Choose a time zone' }).trim().m
 
 const teamName = z.string({ error: 'Team name is required' }).trim().min(2, 'Team name needs at least 2 characters').max(100, 'Team name is at most 100 characters')
 
+/**
+ * How long athletes' form-review clips are kept before the sweep deletes them. At least a week, so a
+ * clip is not gone before a coach has looked; at most two years, so personal video does not pile up.
+ */
+export const REVIEW_RETENTION_DAYS = { min: 7, max: 730 } as const
+const reviewRetentionDays = z.number({ error: 'Give a number of days' }).int('Give a whole number of days')
+  .min(REVIEW_RETENTION_DAYS.min, `Keep clips at least ${REVIEW_RETENTION_DAYS.min} days`)
+  .max(REVIEW_RETENTION_DAYS.max, `Keep clips at most ${REVIEW_RETENTION_DAYS.max} days`)
+
 export const teamSettingsSchema = z.object({
   name: teamName.optional(),
   // Free text: local numbers differ in shape; empty clears it.
   emergencyNumber: z.string().trim().max(40, 'At most 40 characters').regex(/^[\d\s+()\-.]*$/, 'Use digits, spaces and + ( ) - only').nullable().optional()
     .transform(value => value === '' ? null : value),
   timezone: timeZoneSchema.optional(),
-}).refine(value => value.name !== undefined || value.emergencyNumber !== undefined || value.timezone !== undefined, { message: 'Change the name, emergency number or time zone', path: ['name'] })
+  reviewRetentionDays: reviewRetentionDays.optional(),
+}).refine(value => value.name !== undefined || value.emergencyNumber !== undefined || value.timezone !== undefined || value.reviewRetentionDays !== undefined, { message: 'Change the name, emergency number, time zone or how long review clips are kept', path: ['name'] })
 
 export const deleteTeamSchema = z.object({
   confirmName: z.string({ error: 'Type the team\'s name to confirm' }).trim().min(1, 'Type the team\'s name to confirm').max(100),

@@ -41,7 +41,7 @@ describe('form review', () => {
     await signIn(athleteContext, athlete.email)
     const page = await athleteContext.newPage()
     await page.goto(`${stack.url}/reviews`)
-    await page.getByLabel('Video').setInputFiles(clipFile)
+    await page.getByLabel('Or pick a video file').setInputFiles(clipFile)
     await page.getByLabel('Your question (optional)').fill('Is my knee drive high enough?')
     await page.getByRole('button', { name: 'Send for review' }).click()
     await page.waitForURL(/\/reviews\/\d+$/)

@@ -169,6 +169,7 @@ const matrix: Record<string, Row> = {
   'server/api/reviews/[id]/answer.post.ts': { method: 'POST', path: i => `/api/reviews/${i.reviewId}/answer`, fresh: true, expect: [401, 403, 403, 200, 200, 404] },
   'server/api/reviews/[id]/comments.post.ts': { method: 'POST', path: i => `/api/reviews/${i.reviewId}/comments`, body: () => ({ atSeconds: 1, text: 'Keep the hips level' }), expect: [401, 403, 403, 201, 201, 404] },
   'server/api/reviews/[id]/reply-url.post.ts': { method: 'POST', path: i => `/api/reviews/${i.reviewId}/reply-url`, body: () => ({ contentType: 'video/mp4', size: 1000 }), expect: [401, 403, 403, 200, 200, 404] },
+  'server/api/reviews/open-count.get.ts': { method: 'GET', path: () => '/api/reviews/open-count', expect: coachRead },
   'server/api/reviews/index.get.ts': { method: 'GET', path: () => '/api/reviews', expect: anyMember },
   // Nothing was uploaded under the key, so the athlete's request is refused on the key.
   'server/api/reviews/index.post.ts': { method: 'POST', path: () => '/api/reviews', body: () => ({ key: 'nothing-uploaded' }), expect: [401, 400, 400, 403, 403, 403] },

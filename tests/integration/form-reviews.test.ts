@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { makeDemoClip } from '../../seeds/clip'
 import type { ApiClient, FieldError } from '../support/client'
 import { startStack, type Stack } from '../support/stack'
-import { addAthlete, registerCoach } from '../support/team'
+import { addAthlete, addCoach, registerCoach } from '../support/team'
 
 interface Review {
   id: number
@@ -152,11 +152,76 @@ describe('form review', () => {
 
     const old = await sendForReview(athlete.athlete, 'An old one')
     const fresh = await sendForReview(athlete.athlete, 'A new one')
-    await sql('update teams set review_retention_days = 30 where id = ?', [teamId])
+    // The head coach's setting, through the team settings route, is what the sweep reads.
+    expect((await coach.patch('/api/team', { reviewRetentionDays: 30 })).status).toBe(200)
+    expect(await sql('select review_retention_days as days from teams where id = ?', [teamId])).toMatchObject([{ days: 30 }])
     await sql('update form_reviews set created_at = ? where id = ?', [Date.now() - 31 * 86_400_000, old.review.id])
     await expect.poll(() => exists(old.key), { timeout: 10_000 }).toBe(false)
     expect((await athlete.athlete.get(`/api/reviews/${old.review.id}`)).status).toBe(404)
     expect((await athlete.athlete.get(`/api/reviews/${fresh.review.id}`)).status).toBe(200)
     expect(await exists(fresh.key)).toBe(true)
+  })
+
+  it('counts the clips waiting for the team\'s coaches (coaches only, one team), and the queue narrows to a squad, newest first', async () => {
+    const { coach } = await registerCoach(stack)
+    const plainCoach = (await addCoach(stack, coach)).coach
+    const { coach: otherCoach } = await registerCoach(stack, 'Another club')
+    const road = await coach.post<{ id: number }>('/api/squads', { name: 'Road' })
+    const trail = await coach.post<{ id: number }>('/api/squads', { name: 'Trail' })
+    expect([road.status, trail.status]).toEqual([201, 201])
+    const roadRunner = await addAthlete(stack, coach, { name: 'Cai Penhallow', squadId: road.data.id })
+    const trailRunner = await addAthlete(stack, coach, { name: 'Wren Calder', squadId: trail.data.id })
+    const count = async (client: ApiClient) => (await client.get<{ open: number }>('/api/reviews/open-count')).data.open
+
+    expect(await count(coach)).toBe(0)
+    const first = await sendForReview(roadRunner.athlete, 'First')
+    const second = await sendForReview(trailRunner.athlete, 'Second')
+    const third = await sendForReview(roadRunner.athlete, 'Third')
+    expect(await count(coach)).toBe(3)
+    expect(await count(plainCoach)).toBe(3)
+    expect(await count(otherCoach)).toBe(0)
+    expect((await roadRunner.athlete.get('/api/reviews/open-count')).status).toBe(403)
+
+    expect((await coach.post(`/api/reviews/${second.review.id}/answer`, {})).status).toBe(200)
+    expect(await count(coach)).toBe(2)
+
+    type Queue = { items: { id: number, athleteName: string }[] }
+    const roadQueue = await coach.get<Queue>(`/api/reviews?status=all&squadId=${road.data.id}`)
+    expect(roadQueue.data.items.map(item => item.id)).toEqual([third.review.id, first.review.id])
+    const trailQueue = await coach.get<Queue>(`/api/reviews?status=open&squadId=${trail.data.id}`)
+    expect(trailQueue.data.items).toEqual([])
+    const everyone = await coach.get<Queue>('/api/reviews?status=all')
+    expect(everyone.data.items.map(item => item.id)).toEqual([third.review.id, second.review.id, first.review.id])
+    // Another team's squad id narrows this team's queue to nothing rather than leaking its clips.
+    const rivalSquad = await otherCoach.post<{ id: number }>('/api/squads', { name: 'Hills' })
+    expect((await coach.get<Queue>(`/api/reviews?squadId=${rivalSquad.data.id}`)).data.items).toEqual([])
+    const badSquad = await coach.get<FieldError>('/api/reviews?squadId=road')
+    expect(badSquad.status).toBe(400)
+    expect(badSquad.data.data?.fields?.squadId).toBeTruthy()
+  })
+
+  it('lets the head coach set how long clips are kept (a whole number of days, 7 to 730), and no one else', async () => {
+    const { coach: head, teamId } = await registerCoach(stack)
+    const { coach } = await addCoach(stack, head)
+    const athlete = await addAthlete(stack, head)
+    type Team = { team: { reviewRetentionDays: number } }
+    expect((await head.get<Team>('/api/team')).data.team.reviewRetentionDays).toBe(180)
+
+    const refused = await coach.patch('/api/team', { reviewRetentionDays: 30 })
+    expect(refused.status).toBe(403)
+    expect((await athlete.athlete.patch('/api/team', { reviewRetentionDays: 30 })).status).toBe(403)
+
+    for (const [value, message] of [[3, /at least 7/], [731, /at most 730/], [14.5, /whole number/], ['30', /number of days/], [null, /number of days/]] as const) {
+      const response = await head.patch<FieldError>('/api/team', { name: 'Half written', reviewRetentionDays: value })
+      expect(response.status, String(value)).toBe(400)
+      expect(response.data.data?.fields?.reviewRetentionDays, String(value)).toMatch(message)
+    }
+    // Nothing half-written: neither the name sent beside a bad value nor the setting changed.
+    expect(await sql('select name, review_retention_days as days from teams where id = ?', [teamId])).toMatchObject([{ name: 'Larchford Hill Harriers', days: 180 }])
+
+    const saved = await head.patch<{ reviewRetentionDays: number, name: string }>('/api/team', { reviewRetentionDays: 45 })
+    expect(saved.status, saved.text).toBe(200)
+    expect(saved.data).toMatchObject({ reviewRetentionDays: 45, name: 'Larchford Hill Harriers' })
+    expect((await coach.get<Team>('/api/team')).data.team.reviewRetentionDays).toBe(45)
   })
 })

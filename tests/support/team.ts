@@ -12,15 +12,27 @@ export async function registerCoach(stack: Stack, teamName = 'Larchford Hill Har
   return { coach, email, userId: response.data.user.id, teamId: response.data.team.id }
 }
 
-/** Invites an athlete by e-mail, follows the link from the caught message and signs them in. */
-export async function addAthlete(stack: Stack, coach: ApiClient, options: { name?: string, squadId?: number } = {}) {
-  const email = uniqueEmail('athlete')
-  const invite = await coach.post('/api/invites', { email, role: 'athlete', squadId: options.squadId })
+/** Invites someone by e-mail, follows the link from the caught message and signs them in. */
+async function joinByInvite(stack: Stack, inviter: ApiClient, role: 'athlete' | 'coach', name: string, squadId?: number) {
+  const email = uniqueEmail(role)
+  const invite = await inviter.post('/api/invites', { email, role, squadId })
   if (invite.status !== 201) throw new Error(`invite failed: ${invite.status} ${invite.text}`)
   const mail = await stack.mail.waitFor(email, /invited you/)
   const token = linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!
-  const athlete = new ApiClient(stack.url)
-  const accepted = await athlete.post<{ user: { id: number } }>(`/api/invites/${token}/accept`, { name: options.name ?? 'Tamsin Rook', password: PASSWORD })
+  const client = new ApiClient(stack.url)
+  const accepted = await client.post<{ user: { id: number } }>(`/api/invites/${token}/accept`, { name, password: PASSWORD })
   if (accepted.status !== 201) throw new Error(`accept failed: ${accepted.status} ${accepted.text}`)
-  return { athlete, email, userId: accepted.data.user.id }
+  return { client, email, userId: accepted.data.user.id }
+}
+
+/** Invites an athlete by e-mail, follows the link from the caught message and signs them in. */
+export async function addAthlete(stack: Stack, coach: ApiClient, options: { name?: string, squadId?: number } = {}) {
+  const { client, email, userId } = await joinByInvite(stack, coach, 'athlete', options.name ?? 'Tamsin Rook', options.squadId)
+  return { athlete: client, email, userId }
+}
+
+/** Invites a (plain) coach of the head coach's team the same way. */
+export async function addCoach(stack: Stack, head: ApiClient, options: { name?: string } = {}) {
+  const { client, email, userId } = await joinByInvite(stack, head, 'coach', options.name ?? 'Idris Fenn')
+  return { coach: client, email, userId }
 }

@@ -1,11 +1,12 @@
 import { and, asc, eq, gt, isNull } from 'drizzle-orm'
+import { REVIEW_LIMITS } from '#shared/schemas/review'
 import { invites, memberships, squadMembers, squads, teams, users } from '../../db/schema'
 
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)
   const db = await useDb()
   const [[settings], members, squadRows, links, pending] = await Promise.all([
-    db.select({ emergencyNumber: teams.emergencyNumber, timezone: teams.timezone }).from(teams).where(eq(teams.id, caller.teamId)).limit(1),
+    db.select({ emergencyNumber: teams.emergencyNumber, timezone: teams.timezone, reviewRetentionDays: teams.reviewRetentionDays }).from(teams).where(eq(teams.id, caller.teamId)).limit(1),
     db.select({ id: users.id, name: users.name, email: users.email, role: memberships.role, joinedAt: memberships.createdAt })
       .from(memberships).innerJoin(users, eq(users.id, memberships.userId))
       .where(eq(memberships.teamId, caller.teamId)).orderBy(asc(users.name)),
@@ -18,7 +19,7 @@ export default defineEventHandler(async (event) => {
       .orderBy(asc(invites.createdAt)),
   ])
   return {
-    team: { id: caller.teamId, name: caller.teamName, emergencyNumber: settings?.emergencyNumber ?? null, timezone: settings?.timezone ?? 'UTC' },
+    team: { id: caller.teamId, name: caller.teamName, emergencyNumber: settings?.emergencyNumber ?? null, timezone: settings?.timezone ?? 'UTC', reviewRetentionDays: settings?.reviewRetentionDays ?? REVIEW_LIMITS.retentionDaysDefault },
     role: caller.role,
     members: members.map(member => ({ ...member, squadIds: links.filter(link => link.userId === member.id).map(link => link.squadId) })),
     squads: squadRows.map(squad => ({ ...squad, memberIds: links.filter(link => link.squadId === squad.id).map(link => link.userId) })),
