@@ -30,4 +30,5 @@ export async function endMembership(db: Database, teamId: number, userId: number
       await tx.update(painFlags).set({ reply: null }).where(and(eq(painFlags.teamId, teamId), eq(painFlags.athleteId, userId)))
     }
   })
+  forgetCallers({ userId, teamId })
 }

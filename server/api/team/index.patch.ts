@@ -12,5 +12,6 @@ export default defineEventHandler(async (event) => {
     ...(input.emergencyNumber !== undefined ? { emergencyNumber: input.emergencyNumber } : {}),
     ...(input.timezone !== undefined ? { timezone: input.timezone } : {}),
   }).where(eq(teams.id, caller.teamId)).returning({ id: teams.id, name: teams.name, emergencyNumber: teams.emergencyNumber, timezone: teams.timezone })
+  forgetCallers({ teamId: caller.teamId })
   return team
 })
