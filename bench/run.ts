@@ -16,6 +16,8 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 8)
 const CONNECTIONS = 10
 const DEMO_PASSWORD = 'switchback-demo'
 const bare = join(root, 'bench/bare')
+// BENCH_PARTS picks parts of the run (comma-separated): reads, entries, player, lighthouse, insights; default all.
+const PARTS = new Set((process.env.BENCH_PARTS ?? 'reads,entries,player,lighthouse,insights').split(',').map(part => part.trim()))
 
 function run(command: string, args: string[], options: { cwd?: string, env?: Record<string, string> } = {}) {
   return new Promise<void>((resolveRun, reject) => {
@@ -62,14 +64,17 @@ async function playerScripts(url: string, cookie: string, path: string) {
     await page.goto(`${url}${path}`, { waitUntil: 'networkidle' })
     let gzipped = 0
     let raw = 0
+    const sizes: { script: string, gzippedKb: number }[] = []
     for (const script of scripts) {
       const file = join(root, '.output/public', script)
       if (!existsSync(file)) continue
       const bytes = readFileSync(file)
       raw += bytes.length
-      gzipped += gzipSync(bytes, { level: 9 }).length
+      const size = gzipSync(bytes, { level: 9 }).length
+      gzipped += size
+      sizes.push({ script, gzippedKb: size / 1024 })
     }
-    return { count: scripts.size, gzippedKb: gzipped / 1024, rawKb: raw / 1024 }
+    return { count: scripts.size, gzippedKb: gzipped / 1024, rawKb: raw / 1024, largest: sizes.sort((a, b) => b.gzippedKb - a.gzippedKb).slice(0, 6) }
   }
   finally {
     await browser.close()
@@ -111,6 +116,25 @@ async function lighthouseScores(url: string, cookie: string, paths: string[]) {
   }
 }
 
+/** 50 athletes logging every set of a session at once: acknowledged writes against rows stored. */
+async function logSets(databaseUrl: string, url: string) {
+  console.log('Logging sets: 50 athletes at once…')
+  const { athletes } = await seedLoggingAthletes(databaseUrl, url, 50, 60)
+  const started = performance.now()
+  const acknowledged = await logEverything(athletes)
+  const elapsed = (performance.now() - started) / 1000
+  const db = createClient({ url: databaseUrl, timeout: 5000 })
+  const stored = Number((await db.execute(`select count(*) as n from entry_logs where session_id in (${athletes.map(a => a.sessionId).join(',')})`)).rows[0]!.n)
+  db.close()
+  const sortedLatency = [...acknowledged.latenciesMs].sort((a, b) => a - b)
+  return {
+    acknowledged: acknowledged.keys.size,
+    stored,
+    perSecond: acknowledged.keys.size / elapsed,
+    p99: sortedLatency[Math.ceil(0.99 * sortedLatency.length) - 1] ?? 0,
+  }
+}
+
 async function main() {
   if (!existsSync(join(root, '.output/server/index.mjs'))) throw new Error('Build the app first: npm run build')
   if (!existsSync(join(bare, '.output/server/index.mjs'))) {
@@ -145,25 +169,16 @@ async function main() {
       ['/today', 'athlete (page)', athlete.cookie],
     ]
     console.log(`Measuring ${paths.length + 1} paths, ${SECONDS} s each with ${CONNECTIONS} connections…`)
-    const yardstick = await measure(bareUrl, '/', 'bare Nitro route')
-    const rows: Measured[] = [yardstick]
-    for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie))
+    const yardstick = PARTS.has('reads') ? await measure(bareUrl, '/', 'bare Nitro route') : undefined
+    const rows: Measured[] = yardstick ? [yardstick] : []
+    if (yardstick) for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie))
 
-    console.log('Logging sets: 50 athletes at once…')
-    const { athletes } = await seedLoggingAthletes(stack.databaseUrl, app.url, 50, 60)
-    const started = performance.now()
-    const acknowledged = await logEverything(athletes)
-    const elapsed = (performance.now() - started) / 1000
-    const db = createClient({ url: stack.databaseUrl, timeout: 5000 })
-    const stored = Number((await db.execute(`select count(*) as n from entry_logs where session_id in (${athletes.map(a => a.sessionId).join(',')})`)).rows[0]!.n)
-    db.close()
-    const sortedLatency = [...acknowledged.latenciesMs].sort((a, b) => a - b)
-    const entryP99 = sortedLatency[Math.ceil(0.99 * sortedLatency.length) - 1] ?? 0
+    const entries = PARTS.has('entries') ? await logSets(stack.databaseUrl, app.url) : undefined
 
     console.log('Opening the session player cold in Chromium…')
-    const player = await playerScripts(app.url, athlete.cookie, sessionPath)
+    const player = PARTS.has('player') ? await playerScripts(app.url, athlete.cookie, sessionPath) : undefined
     console.log('Lighthouse (mobile, default throttling)…')
-    const lighthouse = await lighthouseScores(app.url, athlete.cookie, ['/today', sessionPath])
+    const lighthouse = PARTS.has('lighthouse') ? await lighthouseScores(app.url, athlete.cookie, ['/today', sessionPath]) : []
 
     console.log('')
     console.log(`Switchback benchmark · ${new Date().toISOString().slice(0, 10)} · ${SECONDS} s per path, ${CONNECTIONS} connections`)
@@ -171,11 +186,14 @@ async function main() {
     console.log('| path | caller | req/s | vs bare | p50 ms | p99 ms | non-2xx | bytes/resp |')
     console.log('|---|---|---|---|---|---|---|---|')
     for (const row of rows) {
-      console.log(`| ${row.path} | ${row.who} | ${row.requestsPerSecond.toFixed(0)} | ${(row.requestsPerSecond / yardstick.requestsPerSecond).toFixed(3)} | ${row.p50} | ${row.p99} | ${row.non2xx} | ${row.bytes.toFixed(0)} |`)
+      console.log(`| ${row.path} | ${row.who} | ${row.requestsPerSecond.toFixed(0)} | ${(row.requestsPerSecond / yardstick!.requestsPerSecond).toFixed(3)} | ${row.p50} | ${row.p99} | ${row.non2xx} | ${row.bytes.toFixed(0)} |`)
     }
     console.log('')
-    console.log(`Entries: ${acknowledged.keys.size} acknowledged · ${stored} stored · ${(acknowledged.keys.size / elapsed).toFixed(0)} acknowledged writes/s · p99 ${entryP99.toFixed(1)} ms (50 athletes at once)`)
-    console.log(`Session player (${sessionPath}, cold): ${player.count} scripts · ${player.gzippedKb.toFixed(1)} KB gzipped · ${player.rawKb.toFixed(1)} KB raw`)
+    if (entries) console.log(`Entries: ${entries.acknowledged} acknowledged · ${entries.stored} stored · ${entries.perSecond.toFixed(0)} acknowledged writes/s · p99 ${entries.p99.toFixed(1)} ms (50 athletes at once)`)
+    if (player) {
+      console.log(`Session player (${sessionPath}, cold): ${player.count} scripts · ${player.gzippedKb.toFixed(1)} KB gzipped · ${player.rawKb.toFixed(1)} KB raw`)
+      console.log(`  largest: ${player.largest.map(item => `${item.script.replace('/_nuxt/', '')} ${item.gzippedKb.toFixed(1)} KB`).join(' · ')}`)
+    }
     for (const score of lighthouse) {
       if ('note' in score) console.log(`Lighthouse ${score.path}: ${score.note}`)
       else console.log(`Lighthouse ${score.path}: performance ${score.performance} · accessibility ${score.accessibility} · best practices ${score.bestPractices} · first paint ${(score.firstPaintMs / 1000).toFixed(1)} s · largest paint ${(score.largestPaintMs / 1000).toFixed(1)} s · blocking ${score.blockingMs.toFixed(0)} ms · ${score.transferKb.toFixed(0)} KB`)
@@ -188,6 +206,7 @@ async function main() {
     for (const child of children) child.kill('SIGTERM')
     await stack.stop()
   }
+  if (!PARTS.has('insights')) return
   console.log('')
   console.log('Team insights, 100 athletes × a year:')
   await new Promise<void>((resolveRun, reject) => {

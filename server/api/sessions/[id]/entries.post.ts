@@ -22,8 +22,9 @@ export default defineEventHandler(async (event) => {
 
   if (segment && Date.now() <= editableUntil(session).getTime()) {
     // One statement: the entry with its exercise link, which stays empty when the library has since
-    // deleted the exercise the snapshot names. A repeated idempotency key inserts nothing.
-    const inserted = await db.insert(entryLogs).values({
+    // deleted the exercise the snapshot names. A repeated idempotency key inserts nothing. The commit is
+    // shared with other athletes' entries arriving at the same moment (server/utils/entry-writes.ts).
+    const inserted = await insertEntry({
       teamId: caller.teamId,
       sessionId: session.id,
       athleteId: caller.userId,
@@ -39,11 +40,11 @@ export default defineEventHandler(async (event) => {
       seconds: body.seconds ?? null,
       meters: body.meters ?? null,
       rpe: body.rpe ?? null,
-    }).onConflictDoNothing().returning()
-    if (inserted[0]) {
+    })
+    if (inserted) {
       await refreshFinishedStatus(db, caller.teamId, session)
       setResponseStatus(event, 201)
-      return entryView(inserted[0])
+      return entryView(inserted)
     }
   }
 
