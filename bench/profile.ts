@@ -1,13 +1,15 @@
 // npm run bench:profile (after npm run build): the built app under `node --cpu-prof` on a freshly seeded
 // demo club, loaded with autocannon on one path at a time; prints each profile's heaviest functions (self
 // time) and leaves the .cpuprofile files for Chrome's DevTools. PROFILE_PATHS picks the paths (comma-separated,
-// default: the library, the athlete's assignments, team insights, /today); BENCH_SECONDS the seconds per path.
+// default: the library, the athlete's assignments, team insights, /today; `entries` for 50 athletes logging
+// sets at once); BENCH_SECONDS the seconds per path.
 import { mkdtempSync, readdirSync, readFileSync } from 'node:fs'
 import { spawn } from 'node:child_process'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import autocannon from 'autocannon'
 import { ApiClient } from '../tests/support/client'
+import { logEverything, seedLoggingAthletes } from '../tests/support/logging-athletes'
 import { freePort, root, startStack, waitForServer } from '../tests/support/stack'
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 6)
@@ -60,6 +62,17 @@ async function main() {
     for (const path of PATHS) {
       const port = await freePort()
       const app = await profiledApp({ ...stack.env, PORT: String(port) }, out, `${path.replace(/\W+/g, '_')}.cpuprofile`)
+      if (path === 'entries') {
+        // 50 athletes logging 60 sets each at once, as in npm run bench.
+        const { athletes } = await seedLoggingAthletes(stack.databaseUrl, app.url, 50, 60)
+        const started = performance.now()
+        const acknowledged = await logEverything(athletes)
+        await app.stop()
+        console.log(`\nentries: ${(acknowledged.keys.size / ((performance.now() - started) / 1000)).toFixed(0)} acknowledged writes/s`)
+        const file = readdirSync(out).find(name => name.startsWith('entries'))
+        if (file) for (const line of heaviest(JSON.parse(readFileSync(join(out, file), 'utf8')) as Profile)) console.log(`  ${line}`)
+        continue
+      }
       const email = athletePaths.has(path) ? 'tamsin@larchford.example' : 'morwen@larchford.example'
       const response = await new ApiClient(app.url).post('/api/auth/login', { email, password: 'switchback-demo' })
       const cookie = response.headers.getSetCookie().map(value => value.split(';')[0]).join('; ')
