@@ -1,7 +1,9 @@
+import type { SQL } from 'drizzle-orm'
 import { entryLogs } from '../db/schema'
 import type { EntryRow } from './sessions'
 
-type EntryValues = typeof entryLogs.$inferInsert
+/** An entry to insert; the exercise link may be a subquery (it stays empty when the exercise is gone). */
+type EntryValues = Omit<typeof entryLogs.$inferInsert, 'exerciseId'> & { exerciseId?: number | null | SQL }
 
 interface Waiting {
   values: EntryValues
