@@ -87,8 +87,9 @@ async function playerScripts(url: string, cookie: string, path: string) {
  */
 async function timerFigures(url: string, databaseUrl: string, cookie: string, email: string) {
   const db = createClient({ url: databaseUrl, timeout: 5000 })
-  const who = (await db.execute({ sql: 'SELECT m.user_id AS userId, m.team_id AS teamId FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = ? LIMIT 1', args: [email] })).rows[0]!
-  const routine = (await db.execute({ sql: 'SELECT id FROM routines WHERE team_id = ? LIMIT 1', args: [who.teamId] })).rows[0]!
+  const found = (await db.execute({ sql: 'SELECT m.user_id AS userId, m.team_id AS teamId FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = ? LIMIT 1', args: [email] })).rows[0]!
+  const who = { userId: Number(found.userId), teamId: Number(found.teamId) }
+  const routine = { id: Number((await db.execute({ sql: 'SELECT id FROM routines WHERE team_id = ? LIMIT 1', args: [who.teamId] })).rows[0]!.id) }
   const durations = [2, 3, 2, 3, 2, 3]
   const snapshot = { title: 'Timer check', category: 'drills', description: '', exercises: [], steps: durations.map((seconds, index) => ({ id: `t${index}`, type: 'block', kind: index % 2 ? 'recovery' : 'work', measure: { by: 'time', seconds } })) }
   const today = new Date().toISOString().slice(0, 10)
