@@ -39,6 +39,10 @@ export default defineNuxtConfig({
     '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': 'default-src \'none\'; frame-ancestors \'none\'' } },
     '/exports/**': { headers: { 'cache-control': 'no-store' } },
   },
+  // Speed (docs/performance.md): links fetch their page's code when touched or focused, not as soon as
+  // they scroll into view, so a phone opening one page does not download the whole navigation's pages;
+  // and shared modules smaller than ~8 KB are merged into their neighbours instead of each being a request.
+  experimental: { defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } } },
   compatibilityDate: '2026-01-01',
   nitro: {
     // Scripts, styles and fonts go out pre-compressed (brotli and gzip), chosen by Accept-Encoding.
@@ -55,6 +59,7 @@ export default defineNuxtConfig({
       },
     },
   },
+  vite: { build: { rollupOptions: { output: { experimentalMinChunkSize: 8_000 } } } },
   typescript: { strict: true },
   telemetry: false,
   hooks: {

@@ -2,7 +2,7 @@
 // app on a freshly seeded demo club; prints one table of figures as ratios to the yardstick, then the
 // entry-logging, player, Lighthouse and insights figures. Stops everything it started.
 import { spawn, type ChildProcess } from 'node:child_process'
-import { existsSync, readFileSync, statSync } from 'node:fs'
+import { existsSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { gzipSync } from 'node:zlib'
 import autocannon from 'autocannon'
@@ -16,6 +16,8 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 8)
 const CONNECTIONS = 10
 const DEMO_PASSWORD = 'switchback-demo'
 const bare = join(root, 'bench/bare')
+// BENCH_PARTS picks parts of the run (comma-separated): reads, entries, player, lighthouse, timer, insights; default all.
+const PARTS = new Set((process.env.BENCH_PARTS ?? 'reads,entries,player,lighthouse,timer,insights').split(',').map(part => part.trim()))
 
 function run(command: string, args: string[], options: { cwd?: string, env?: Record<string, string> } = {}) {
   return new Promise<void>((resolveRun, reject) => {
@@ -62,14 +64,66 @@ async function playerScripts(url: string, cookie: string, path: string) {
     await page.goto(`${url}${path}`, { waitUntil: 'networkidle' })
     let gzipped = 0
     let raw = 0
+    const sizes: { script: string, gzippedKb: number }[] = []
     for (const script of scripts) {
       const file = join(root, '.output/public', script)
       if (!existsSync(file)) continue
       const bytes = readFileSync(file)
       raw += bytes.length
-      gzipped += gzipSync(bytes, { level: 9 }).length
+      const size = gzipSync(bytes, { level: 9 }).length
+      gzipped += size
+      sizes.push({ script, gzippedKb: size / 1024 })
     }
-    return { count: scripts.size, gzippedKb: gzipped / 1024, rawKb: raw / 1024 }
+    return { count: scripts.size, gzippedKb: gzipped / 1024, rawKb: raw / 1024, largest: sizes.sort((a, b) => b.gzippedKb - a.gzippedKb).slice(0, 6) }
+  }
+  finally {
+    await browser.close()
+  }
+}
+
+/**
+ * The timer in Chromium: a session of six timed steps (2 and 3 s) run in real time; for each step change, how
+ * long after its scheduled moment the player rendered it (its own record) and the page's DOM showed it.
+ */
+async function timerFigures(url: string, databaseUrl: string, cookie: string, email: string) {
+  const db = createClient({ url: databaseUrl, timeout: 5000 })
+  const found = (await db.execute({ sql: 'SELECT m.user_id AS userId, m.team_id AS teamId FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = ? LIMIT 1', args: [email] })).rows[0]!
+  const who = { userId: Number(found.userId), teamId: Number(found.teamId) }
+  const routine = { id: Number((await db.execute({ sql: 'SELECT id FROM routines WHERE team_id = ? LIMIT 1', args: [who.teamId] })).rows[0]!.id) }
+  const durations = [2, 3, 2, 3, 2, 3]
+  const snapshot = { title: 'Timer check', category: 'drills', description: '', exercises: [], steps: durations.map((seconds, index) => ({ id: `t${index}`, type: 'block', kind: index % 2 ? 'recovery' : 'work', measure: { by: 'time', seconds } })) }
+  const today = new Date().toISOString().slice(0, 10)
+  const assignment = await db.execute({ sql: 'INSERT INTO assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date, status) VALUES (?, ?, ?, 1, ?, ?, ?) RETURNING id', args: [who.teamId, who.userId, routine.id, JSON.stringify(snapshot), today, 'planned'] })
+  db.close()
+  const browser = await launchBrowser()
+  try {
+    const context = await newContext(browser, 'phone')
+    const [name, value] = cookie.split(';')[0]!.split('=')
+    await context.addCookies([{ name: name!, value: value!, url }])
+    const page = await context.newPage()
+    await page.goto(`${url}/session/${Number(assignment.rows[0]!.id)}`)
+    await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
+    await page.evaluate(() => {
+      const seen: { index: number, at: number }[] = []
+      ;(window as unknown as { seenChanges: typeof seen }).seenChanges = seen
+      new MutationObserver(() => {
+        const element = document.querySelector('[data-testid="current-step"]')
+        const index = Number(element?.getAttribute('data-index'))
+        if (element && seen.at(-1)?.index !== index) seen.push({ index, at: performance.now() })
+      }).observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-index'] })
+    })
+    await page.getByRole('button', { name: 'Start session' }).click()
+    await page.getByRole('heading', { name: 'Well done — how did it go?' }).waitFor({ timeout: 60_000 })
+    const result = await page.evaluate(() => ({
+      timings: (window as unknown as { switchbackPlayer?: { timings: { index: number, scheduledAt: number, shownAt: number }[] } }).switchbackPlayer?.timings ?? [],
+      seen: (window as unknown as { seenChanges: { index: number, at: number }[] }).seenChanges,
+    }))
+    if (!result.timings.length) return undefined
+    const start = result.timings[0]!.scheduledAt - durations[0]! * 1000
+    const rendered = result.timings.map(timing => timing.shownAt - timing.scheduledAt)
+    const inDom = result.seen.filter(item => item.index > 0).map(item => item.at - (start + durations.slice(0, item.index).reduce((sum, seconds) => sum + seconds * 1000, 0)))
+    const stats = (values: number[]) => ({ max: Math.max(...values), mean: values.reduce((sum, item) => sum + item, 0) / values.length })
+    return { changes: rendered.length, rendered: stats(rendered), inDom: stats(inDom) }
   }
   finally {
     await browser.close()
@@ -111,13 +165,33 @@ async function lighthouseScores(url: string, cookie: string, paths: string[]) {
   }
 }
 
+/** 50 athletes logging every set of a session at once: acknowledged writes against rows stored. */
+async function logSets(databaseUrl: string, url: string) {
+  console.log('Logging sets: 50 athletes at once…')
+  const { athletes } = await seedLoggingAthletes(databaseUrl, url, 50, 60)
+  const started = performance.now()
+  const acknowledged = await logEverything(athletes)
+  const elapsed = (performance.now() - started) / 1000
+  const db = createClient({ url: databaseUrl, timeout: 5000 })
+  const stored = Number((await db.execute(`select count(*) as n from entry_logs where session_id in (${athletes.map(a => a.sessionId).join(',')})`)).rows[0]!.n)
+  db.close()
+  const sortedLatency = [...acknowledged.latenciesMs].sort((a, b) => a - b)
+  return {
+    acknowledged: acknowledged.keys.size,
+    stored,
+    perSecond: acknowledged.keys.size / elapsed,
+    p99: sortedLatency[Math.ceil(0.99 * sortedLatency.length) - 1] ?? 0,
+  }
+}
+
 async function main() {
   if (!existsSync(join(root, '.output/server/index.mjs'))) throw new Error('Build the app first: npm run build')
   if (!existsSync(join(bare, '.output/server/index.mjs'))) {
     console.log('Building the bare Nitro yardstick (bench/bare)…')
     await run(join(root, 'node_modules/.bin/nitropack'), ['build'], { cwd: bare })
   }
-  const stack = await startStack({ OUTBOX_INTERVAL_MS: '600000' }, { startApp: false })
+  // The player's timing record (window.switchbackPlayer) is exposed only with the speed switch allowed.
+  const stack = await startStack({ OUTBOX_INTERVAL_MS: '600000', NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' }, { startApp: false })
   const children: ChildProcess[] = []
   try {
     console.log('Seeding the demo club…')
@@ -145,25 +219,18 @@ async function main() {
       ['/today', 'athlete (page)', athlete.cookie],
     ]
     console.log(`Measuring ${paths.length + 1} paths, ${SECONDS} s each with ${CONNECTIONS} connections…`)
-    const yardstick = await measure(bareUrl, '/', 'bare Nitro route')
-    const rows: Measured[] = [yardstick]
-    for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie))
+    const yardstick = PARTS.has('reads') ? await measure(bareUrl, '/', 'bare Nitro route') : undefined
+    const rows: Measured[] = yardstick ? [yardstick] : []
+    if (yardstick) for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie))
 
-    console.log('Logging sets: 50 athletes at once…')
-    const { athletes } = await seedLoggingAthletes(stack.databaseUrl, app.url, 50, 60)
-    const started = performance.now()
-    const acknowledged = await logEverything(athletes)
-    const elapsed = (performance.now() - started) / 1000
-    const db = createClient({ url: stack.databaseUrl, timeout: 5000 })
-    const stored = Number((await db.execute(`select count(*) as n from entry_logs where session_id in (${athletes.map(a => a.sessionId).join(',')})`)).rows[0]!.n)
-    db.close()
-    const sortedLatency = [...acknowledged.latenciesMs].sort((a, b) => a - b)
-    const entryP99 = sortedLatency[Math.ceil(0.99 * sortedLatency.length) - 1] ?? 0
+    const entries = PARTS.has('entries') ? await logSets(stack.databaseUrl, app.url) : undefined
 
     console.log('Opening the session player cold in Chromium…')
-    const player = await playerScripts(app.url, athlete.cookie, sessionPath)
+    const player = PARTS.has('player') ? await playerScripts(app.url, athlete.cookie, sessionPath) : undefined
     console.log('Lighthouse (mobile, default throttling)…')
-    const lighthouse = await lighthouseScores(app.url, athlete.cookie, ['/today', sessionPath])
+    const lighthouse = PARTS.has('lighthouse') ? await lighthouseScores(app.url, athlete.cookie, ['/today', sessionPath]) : []
+    console.log('Timer in Chromium (six timed steps, real time)…')
+    const timer = PARTS.has('timer') ? await timerFigures(app.url, stack.databaseUrl, athlete.cookie, 'tamsin@larchford.example') : undefined
 
     console.log('')
     console.log(`Switchback benchmark · ${new Date().toISOString().slice(0, 10)} · ${SECONDS} s per path, ${CONNECTIONS} connections`)
@@ -171,23 +238,29 @@ async function main() {
     console.log('| path | caller | req/s | vs bare | p50 ms | p99 ms | non-2xx | bytes/resp |')
     console.log('|---|---|---|---|---|---|---|---|')
     for (const row of rows) {
-      console.log(`| ${row.path} | ${row.who} | ${row.requestsPerSecond.toFixed(0)} | ${(row.requestsPerSecond / yardstick.requestsPerSecond).toFixed(3)} | ${row.p50} | ${row.p99} | ${row.non2xx} | ${row.bytes.toFixed(0)} |`)
+      console.log(`| ${row.path} | ${row.who} | ${row.requestsPerSecond.toFixed(0)} | ${(row.requestsPerSecond / yardstick!.requestsPerSecond).toFixed(3)} | ${row.p50} | ${row.p99} | ${row.non2xx} | ${row.bytes.toFixed(0)} |`)
     }
     console.log('')
-    console.log(`Entries: ${acknowledged.keys.size} acknowledged · ${stored} stored · ${(acknowledged.keys.size / elapsed).toFixed(0)} acknowledged writes/s · p99 ${entryP99.toFixed(1)} ms (50 athletes at once)`)
-    console.log(`Session player (${sessionPath}, cold): ${player.count} scripts · ${player.gzippedKb.toFixed(1)} KB gzipped · ${player.rawKb.toFixed(1)} KB raw`)
+    if (entries) console.log(`Entries: ${entries.acknowledged} acknowledged · ${entries.stored} stored · ${entries.perSecond.toFixed(0)} acknowledged writes/s · p99 ${entries.p99.toFixed(1)} ms (50 athletes at once)`)
+    if (player) {
+      console.log(`Session player (${sessionPath}, cold): ${player.count} scripts · ${player.gzippedKb.toFixed(1)} KB gzipped · ${player.rawKb.toFixed(1)} KB raw`)
+      console.log(`  largest: ${player.largest.map(item => `${item.script.replace('/_nuxt/', '')} ${item.gzippedKb.toFixed(1)} KB`).join(' · ')}`)
+    }
     for (const score of lighthouse) {
       if ('note' in score) console.log(`Lighthouse ${score.path}: ${score.note}`)
       else console.log(`Lighthouse ${score.path}: performance ${score.performance} · accessibility ${score.accessibility} · best practices ${score.bestPractices} · first paint ${(score.firstPaintMs / 1000).toFixed(1)} s · largest paint ${(score.largestPaintMs / 1000).toFixed(1)} s · blocking ${score.blockingMs.toFixed(0)} ms · ${score.transferKb.toFixed(0)} KB`)
     }
-    const assets = statSync(join(root, '.output/public/_nuxt')).isDirectory()
-    if (assets) console.log('Timer figures: run `npx vitest run --project browser tests/browser/session-player.test.ts` (it prints step-change lateness).')
+    if (timer) {
+      console.log(`Timer: ${timer.changes} step changes · rendered by the player after their scheduled moment max ${timer.rendered.max.toFixed(1)} ms, mean ${timer.rendered.mean.toFixed(1)} ms · seen in the DOM max ${timer.inDom.max.toFixed(1)} ms, mean ${timer.inDom.mean.toFixed(1)} ms (one frame ≈ 16.7 ms)`)
+      console.log('Timer: beeps are played when the change is rendered (the audio clock\'s current time), not scheduled ahead at the boundary; no separate beep figure.')
+    }
     await app.stop()
   }
   finally {
     for (const child of children) child.kill('SIGTERM')
     await stack.stop()
   }
+  if (!PARTS.has('insights')) return
   console.log('')
   console.log('Team insights, 100 athletes × a year:')
   await new Promise<void>((resolveRun, reject) => {

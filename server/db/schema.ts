@@ -488,6 +488,11 @@ export const sessionLogs = sqliteTable('session_logs', {
   /** The athlete said the pain came on suddenly or is sharp. */
   painSudden: integer('pain_sudden', { mode: 'boolean' }).notNull().default(false),
   note: text('note').notNull().default(''),
+  /**
+   * The loggable sets and intervals of the routine as the session started (key and exercise), so an
+   * entry is checked against them without planning the session again; null on sessions started before.
+   */
+  segmentKeys: text('segment_keys', { mode: 'json' }).$type<{ key: string, exerciseId: number | null }[]>(),
   ...timestamps,
 }, t => [
   uniqueIndex('session_logs_athlete_client_unique').on(t.athleteId, t.clientId),

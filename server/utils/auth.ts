@@ -18,12 +18,29 @@ export interface Caller {
  * 401 when signed out (or the membership is gone), 403 when the role is below `minimum`.
  */
 export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete'): Promise<Caller> {
+  const cookie = getCookie(event, sessionCookieName())
+  const hit = cookie ? cachedCaller(cookie) : undefined
+  if (hit) {
+    // Still one read per request, but a single indexed lookup with a fixed statement: no cookie to
+    // unseal and no query to build. A sign-in ended or a role changed by any process counts at once.
+    const db = await useDb()
+    const live = await db.$client.execute({ sql: liveSignInSql, args: [hit.tokenHash, hit.caller.userId, hit.caller.teamId, Date.now()] })
+    const role = live.rows[0]?.role as Role | undefined
+    if (role) {
+      assertRole(role, minimum)
+      event.context.caller = { ...hit.caller, role }
+      return event.context.caller as Caller
+    }
+    forgetCallers({ tokenHashes: [hit.tokenHash] })
+  }
   const session = await getUserSession(event)
   const sid = session.secure?.sid
   if (!session.user || !session.teamId || typeof sid !== 'string') {
     refuse(401, 'Sign in first')
   }
   const db = await useDb()
+  const tokenHash = hashToken(sid)
+  const lookedUpAt = callerGeneration()
   // One lookup: the live sign-in row, the membership it is for, the person and the team.
   const [row] = await db.select({
     role: memberships.role,
@@ -31,12 +48,13 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
     email: users.email,
     timezone: users.timezone,
     teamName: teams.name,
+    expiresAt: authSessions.expiresAt,
   }).from(authSessions)
     .innerJoin(memberships, and(eq(memberships.userId, authSessions.userId), eq(memberships.teamId, authSessions.teamId)))
     .innerJoin(users, eq(users.id, memberships.userId))
     .innerJoin(teams, eq(teams.id, memberships.teamId))
     .where(and(
-      eq(authSessions.tokenHash, hashToken(sid)),
+      eq(authSessions.tokenHash, tokenHash),
       eq(authSessions.userId, session.user.id),
       eq(authSessions.teamId, session.teamId),
       gt(authSessions.expiresAt, new Date()),
@@ -46,11 +64,30 @@ export async function requireTeamRole(event: H3Event, minimum: Role = 'athlete')
     await clearUserSession(event)
     refuse(401, 'Your session has ended; sign in again')
   }
-  if (!hasRole(row.role, minimum)) {
+  const { expiresAt, ...found } = row
+  const caller: Caller = { userId: session.user.id, teamId: session.teamId, ...found }
+  if (cookie) rememberCaller(cookie, caller, tokenHash, expiresAt.getTime(), lookedUpAt)
+  assertRole(caller.role, minimum)
+  event.context.caller = { ...caller }
+  return event.context.caller as Caller
+}
+
+function assertRole(role: Role, minimum: Role) {
+  if (!hasRole(role, minimum)) {
     refuse(403, minimum === 'head_coach' ? 'Only the head coach can do this' : minimum === 'coach' ? 'Only coaches can do this' : 'Not allowed')
   }
-  event.context.caller = { userId: session.user.id, teamId: session.teamId, ...row }
-  return event.context.caller as Caller
+}
+
+const liveSignInSql = `SELECT m.role AS role FROM auth_sessions s
+  JOIN memberships m ON m.team_id = s.team_id AND m.user_id = s.user_id
+  WHERE s.token_hash = ? AND s.user_id = ? AND s.team_id = ? AND s.expires_at > ? LIMIT 1`
+
+let cookieName: string | undefined
+
+/** The sealed session cookie's name (nuxt-auth-utils' default unless the runtime config names one). */
+function sessionCookieName() {
+  cookieName ??= (useRuntimeConfig().session as { name?: string } | undefined)?.name || 'nuxt-session'
+  return cookieName
 }
 
 export async function requireCoach(event: H3Event) {

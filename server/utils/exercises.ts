@@ -7,7 +7,7 @@ import type { Caller } from './auth'
 type ExerciseRow = typeof exercises.$inferSelect
 type MediaRow = typeof mediaObjects.$inferSelect
 
-export function exerciseView(row: ExerciseRow, clip?: Pick<MediaRow, 'contentType' | 'size'> & Partial<Pick<MediaRow, 'durationSeconds' | 'width' | 'height'>> | null): ExerciseView {
+export function exerciseView(row: Pick<ExerciseRow, 'id' | 'name' | 'category' | 'summary' | 'cues' | 'equipment' | 'cautions' | 'clipId' | 'posterId' | 'archivedAt' | 'createdAt' | 'updatedAt'>, clip?: Pick<MediaRow, 'contentType' | 'size'> & Partial<Pick<MediaRow, 'durationSeconds' | 'width' | 'height'>> | null): ExerciseView {
   return {
     id: row.id,
     name: row.name,

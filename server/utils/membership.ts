@@ -49,4 +49,5 @@ export async function endMembership(db: Database, teamId: number, userId: number
       await tx.delete(formReviews).where(and(eq(formReviews.teamId, teamId), eq(formReviews.athleteId, userId)))
     }
   })
+  forgetCallers({ userId, teamId })
 }

@@ -16,12 +16,13 @@ export async function startSignIn(userId: number, teamId: number) {
 }
 
 /**
- * Every way a session ends goes through here, so a later in-memory cache of sessions has one place
- * to be invalidated.
+ * Every way a session ends goes through here, so the in-process cache of callers (caller-cache.ts)
+ * forgets the ended sign-ins at once.
  */
 async function revoke(where: SQL | undefined) {
   const db = await useDb()
-  const ended = await db.delete(authSessions).where(where).returning({ id: authSessions.id })
+  const ended = await db.delete(authSessions).where(where).returning({ id: authSessions.id, tokenHash: authSessions.tokenHash })
+  if (ended.length) forgetCallers({ tokenHashes: ended.map(row => row.tokenHash) })
   return ended.length
 }
 

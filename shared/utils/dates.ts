@@ -20,14 +20,30 @@ export function isCalendarDay(value: string): boolean {
   return date.getUTCFullYear() === y && date.getUTCMonth() === m - 1 && date.getUTCDate() === d
 }
 
+// Day arithmetic runs thousands of times per insights request over the same few hundred days:
+// both directions are remembered (bounded, cleared when full).
+const msOfDay = new Map<string, number>()
+const dayOfMs = new Map<number, string>()
+const REMEMBERED_DAYS = 20_000
+
 function toUtcMs(day: string): number {
+  const known = msOfDay.get(day)
+  if (known !== undefined) return known
   if (!isCalendarDay(day)) throw new RangeError(`Not a calendar day: ${day}`)
   const [y, m, d] = day.split('-').map(Number) as [number, number, number]
-  return Date.UTC(y, m - 1, d)
+  const ms = Date.UTC(y, m - 1, d)
+  if (msOfDay.size >= REMEMBERED_DAYS) msOfDay.clear()
+  msOfDay.set(day, ms)
+  return ms
 }
 
 function fromUtcMs(ms: number): string {
-  return new Date(ms).toISOString().slice(0, 10)
+  const known = dayOfMs.get(ms)
+  if (known !== undefined) return known
+  const day = new Date(ms).toISOString().slice(0, 10)
+  if (dayOfMs.size >= REMEMBERED_DAYS) dayOfMs.clear()
+  dayOfMs.set(ms, day)
+  return day
 }
 
 export function addDays(day: string, days: number): string {

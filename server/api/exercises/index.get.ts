@@ -2,6 +2,28 @@ import { and, asc, count, desc, eq, inArray, isNotNull, isNull, sql, type SQL } 
 import { exerciseListQuerySchema } from '#shared/schemas/exercise'
 import { exercises, mediaObjects } from '../../db/schema'
 
+const listedColumns = {
+  id: exercises.id,
+  name: exercises.name,
+  category: exercises.category,
+  summary: exercises.summary,
+  cues: exercises.cues,
+  equipment: exercises.equipment,
+  cautions: exercises.cautions,
+  clipId: exercises.clipId,
+  posterId: exercises.posterId,
+  archivedAt: exercises.archivedAt,
+  createdAt: exercises.createdAt,
+  updatedAt: exercises.updatedAt,
+}
+const clipColumns = {
+  contentType: mediaObjects.contentType,
+  size: mediaObjects.size,
+  durationSeconds: mediaObjects.durationSeconds,
+  width: mediaObjects.width,
+  height: mediaObjects.height,
+}
+
 function likePattern(text: string) {
   return `%${text.toLowerCase().replace(/[\\%_]/g, match => `\\${match}`)}%`
 }
@@ -34,24 +56,29 @@ export default defineEventHandler(async (event) => {
     clip: [direction(sql`${exercises.clipId} IS NOT NULL`), asc(sql`lower(${exercises.name})`)],
   }[query.sort]
 
-  const [rows, [totals], equipment] = await Promise.all([
-    db.select({ exercise: exercises, clip: mediaObjects })
+  const coach = isCoachRole(caller.role)
+  const [rows, equipment] = await Promise.all([
+    // Only the columns the list shows, and the count of all matches in the same statement.
+    db.select({ exercise: listedColumns, clip: clipColumns, total: sql<number>`count(*) OVER ()` })
       .from(exercises)
       .leftJoin(mediaObjects, eq(mediaObjects.id, exercises.clipId))
       .where(where)
       .orderBy(...order, asc(exercises.id))
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize),
-    db.select({ total: count() }).from(exercises).where(where),
-    // Every piece of equipment the team's library names, for the filter.
-    db.all<{ item: string }>(sql`SELECT DISTINCT json_each.value AS item FROM ${exercises}, json_each(${exercises.equipment}) WHERE ${exercises.teamId} = ${caller.teamId} ORDER BY lower(json_each.value)`),
+    // Every piece of equipment the team's library names, for the coach's filter.
+    coach
+      ? db.all<{ item: string }>(sql`SELECT DISTINCT json_each.value AS item FROM ${exercises}, json_each(${exercises.equipment}) WHERE ${exercises.teamId} = ${caller.teamId} ORDER BY lower(json_each.value)`)
+      : [],
   ])
+  // A page past the end has no row to carry the count.
+  const total = rows[0]?.total ?? (query.page > 1 ? (await db.select({ total: count() }).from(exercises).where(where))[0]?.total ?? 0 : 0)
 
   return {
     items: rows.map(row => exerciseView(row.exercise, row.clip)),
-    total: totals?.total ?? 0,
+    total,
     page: query.page,
     pageSize: query.pageSize,
-    equipmentOptions: isCoachRole(caller.role) ? equipment.map(row => row.item) : [],
+    equipmentOptions: equipment.map(row => row.item),
   }
 })

@@ -1,4 +1,5 @@
-import { and, asc, eq, gte, lte } from 'drizzle-orm'
+import { and, asc, eq, gte, lte, sql } from 'drizzle-orm'
+import type { AssignmentSnapshot } from '#shared/types/domain'
 import { assignments } from '../../db/schema'
 import { myAssignmentRangeSchema } from '#shared/schemas/planner'
 import { shownStatus } from '#shared/utils/assignment-status'
@@ -16,7 +17,11 @@ export default defineEventHandler(async (event) => {
   const rows = await db.select({
     id: assignments.id,
     date: assignments.date,
-    snapshot: assignments.snapshot,
+    // Only the parts of the snapshot the list shows, read in SQL instead of parsing every snapshot.
+    title: sql<string>`json_extract(${assignments.snapshot}, '$.title')`,
+    category: sql<AssignmentSnapshot['category']>`json_extract(${assignments.snapshot}, '$.category')`,
+    exerciseCount: sql<number>`coalesce(json_array_length(${assignments.snapshot}, '$.exercises'), 0)`,
+    block: sql<string | null>`json_extract(${assignments.snapshot}, '$.block')`,
     note: assignments.note,
     status: assignments.status,
     seriesId: assignments.seriesId,
@@ -29,12 +34,12 @@ export default defineEventHandler(async (event) => {
     timezone: caller.timezone,
     from,
     to,
-    assignments: rows.map(({ snapshot, ...row }) => ({
+    assignments: rows.map(({ title, category, exerciseCount, block, ...row }) => ({
       ...row,
-      title: snapshot.title,
-      category: snapshot.category,
-      exerciseCount: snapshot.exercises.length,
-      block: snapshot.block ?? null,
+      title,
+      category,
+      exerciseCount,
+      block: block ? JSON.parse(block) as NonNullable<AssignmentSnapshot['block']> : null,
       shownStatus: shownStatus(row.status, row.date, today),
     })),
   }

@@ -21,5 +21,6 @@ export default defineEventHandler(async (event) => {
     if (injury?.success) await addInjuryNote(db, caller.teamId, caller.userId, injury.data)
   }
   await db.update(users).set({ welcomedAt: new Date(), ...(input.timezone && !input.skip ? { timezone: input.timezone } : {}) }).where(eq(users.id, caller.userId))
+  forgetCallers({ userId: caller.userId })
   return { welcomed: true }
 })

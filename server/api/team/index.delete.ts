@@ -16,6 +16,7 @@ export default defineEventHandler(async (event) => {
     await tx.delete(assignments).where(eq(assignments.teamId, caller.teamId))
     await tx.delete(teams).where(eq(teams.id, caller.teamId))
   })
+  forgetCallers({ teamId: caller.teamId })
   await Promise.all(media.map(object => deleteObjectQuietly(object.key)))
   // Someone who coaches another team carries on there; otherwise they are signed out.
   const [next] = await teamsOf(db, caller.userId)

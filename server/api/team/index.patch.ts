@@ -13,5 +13,6 @@ export default defineEventHandler(async (event) => {
     ...(input.timezone !== undefined ? { timezone: input.timezone } : {}),
     ...(input.reviewRetentionDays !== undefined ? { reviewRetentionDays: input.reviewRetentionDays } : {}),
   }).where(eq(teams.id, caller.teamId)).returning({ id: teams.id, name: teams.name, emergencyNumber: teams.emergencyNumber, timezone: teams.timezone, reviewRetentionDays: teams.reviewRetentionDays })
+  forgetCallers({ teamId: caller.teamId })
   return team
 })

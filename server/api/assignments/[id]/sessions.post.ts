@@ -26,6 +26,7 @@ export default defineEventHandler(async (event) => {
     clientId: body.clientId,
     startedAt,
     day: todayIn(caller.timezone, startedAt),
+    segmentKeys: segmentKeysOf(assignment.snapshot),
   }).onConflictDoNothing().returning()
   const [session] = inserted.length
     ? inserted

@@ -19,5 +19,6 @@ export default defineEventHandler(async (event) => {
     refuseField('role', 'The team needs a head coach; make someone else head coach first', 409)
   }
   await db.update(memberships).set({ role }).where(and(eq(memberships.teamId, caller.teamId), eq(memberships.userId, id)))
+  forgetCallers({ userId: id, teamId: caller.teamId })
   return { id, role }
 })

@@ -1,0 +1,1 @@
+ALTER TABLE `session_logs` ADD `segment_keys` text;
