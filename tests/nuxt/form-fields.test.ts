@@ -1,0 +1,78 @@
+import { describe, expect, it } from 'vitest'
+import { mountSuspended } from '@nuxt/test-utils/runtime'
+import FormSelect from '~/components/form/FormSelect.vue'
+import FormFieldError from '~/components/form/FormFieldError.vue'
+import FormTextField from '~/components/form/FormTextField.vue'
+
+const options = [{ value: 'knee', label: 'Knee' }, { value: 'calf', label: 'Calf' }]
+
+describe('FormSelect', () => {
+  it('labels its select, lists the placeholder then the options, and reports the choice', async () => {
+    const wrapper = await mountSuspended(FormSelect, {
+      props: { label: 'Body area', name: 'bodyArea', placeholder: 'Choose', options, modelValue: '' },
+    })
+    const select = wrapper.get('select')
+    const label = wrapper.get('label')
+    expect(label.text()).toBe('Body area')
+    expect(select.attributes('id')).toBeTruthy()
+    expect(label.attributes('for')).toBe(select.attributes('id'))
+    expect(select.attributes('name')).toBe('bodyArea')
+    expect(wrapper.findAll('option').map(option => option.text())).toEqual(['Choose', 'Knee', 'Calf'])
+    expect(select.attributes('aria-invalid')).toBeUndefined()
+
+    await select.setValue('calf')
+    expect(wrapper.emitted('update:modelValue')?.at(-1)).toEqual(['calf'])
+  })
+
+  it('marks the select invalid and points it at the announced error', async () => {
+    const wrapper = await mountSuspended(FormSelect, {
+      props: { label: 'Body area', options, modelValue: '', error: 'Choose a body area' },
+    })
+    const select = wrapper.get('select')
+    expect(select.attributes('aria-invalid')).toBe('true')
+    const describedBy = select.attributes('aria-describedby')!
+    const message = wrapper.get(`#${CSS.escape(describedBy)}`)
+    expect(message.text()).toBe('Choose a body area')
+    expect(message.attributes('role')).toBe('alert')
+  })
+
+  it('describes the select by its hint while there is no error, and passes other attributes to the select', async () => {
+    const wrapper = await mountSuspended(FormSelect, {
+      props: { label: 'Routine', options, modelValue: 'knee', hint: 'Build one first' },
+      attrs: { 'class': 'grow', 'data-testid': 'routine-choice' },
+    })
+    const select = wrapper.get('select')
+    expect(wrapper.get(`#${CSS.escape(select.attributes('aria-describedby')!)}`).text()).toBe('Build one first')
+    expect(select.attributes('data-testid')).toBe('routine-choice')
+    expect(wrapper.classes()).toContain('grow')
+    expect(select.classes()).not.toContain('grow')
+  })
+})
+
+describe('FormFieldError', () => {
+  it('renders nothing without a message', async () => {
+    const wrapper = await mountSuspended(FormFieldError, { props: { message: '' } })
+    expect(wrapper.find('p').exists()).toBe(false)
+  })
+
+  it('announces its message under the id a control names', async () => {
+    const wrapper = await mountSuspended(FormFieldError, { props: { message: 'Too long', id: 'note-error' } })
+    const message = wrapper.get('p')
+    expect(message.attributes('role')).toBe('alert')
+    expect(message.attributes('id')).toBe('note-error')
+    expect(message.text()).toBe('Too long')
+  })
+})
+
+describe('FormTextField', () => {
+  it('keeps a caller\'s aria-invalid when the error is shown elsewhere', async () => {
+    const wrapper = await mountSuspended(FormTextField, {
+      props: { label: 'Weeks', type: 'number', modelValue: 3 },
+      attrs: { 'aria-invalid': 'true', 'min': '1' },
+    })
+    const input = wrapper.get('input')
+    expect(input.attributes('aria-invalid')).toBe('true')
+    expect(input.attributes('min')).toBe('1')
+    expect(wrapper.get('label').attributes('for')).toBe(input.attributes('id'))
+  })
+})
