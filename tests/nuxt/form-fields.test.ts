@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
+import FormChoiceGroup from '~/components/form/FormChoiceGroup.vue'
 import FormSelect from '~/components/form/FormSelect.vue'
 import FormFieldError from '~/components/form/FormFieldError.vue'
 import FormTextField from '~/components/form/FormTextField.vue'
@@ -74,5 +75,43 @@ describe('FormTextField', () => {
     expect(input.attributes('aria-invalid')).toBe('true')
     expect(input.attributes('min')).toBe('1')
     expect(wrapper.get('label').attributes('for')).toBe(input.attributes('id'))
+  })
+})
+
+describe('FormTextField with rows', () => {
+  it('is a labelled textarea that reports what is typed', async () => {
+    const wrapper = await mountSuspended(FormTextField, { props: { label: 'Summary', rows: 3, modelValue: '' } })
+    const textarea = wrapper.get('textarea')
+    expect(wrapper.find('input').exists()).toBe(false)
+    expect(textarea.attributes('rows')).toBe('3')
+    expect(wrapper.get('label').attributes('for')).toBe(textarea.attributes('id'))
+    await textarea.setValue('Drive the knee')
+    expect(wrapper.emitted('update:modelValue')?.at(-1)).toEqual(['Drive the knee'])
+  })
+})
+
+describe('FormChoiceGroup', () => {
+  const units = [{ value: 'km', label: 'Kilometres' }, { value: 'mi', label: 'Miles' }]
+
+  it('names its radios by the legend and hands back the chosen value', async () => {
+    const wrapper = await mountSuspended(FormChoiceGroup, { props: { legend: 'Units', name: 'units', options: units, modelValue: 'km' } })
+    expect(wrapper.get('legend').text()).toBe('Units')
+    const radios = wrapper.findAll('input[type="radio"]')
+    expect(radios.map(radio => radio.element.closest('label')?.textContent?.trim())).toEqual(['Kilometres', 'Miles'])
+    expect((radios[0]!.element as HTMLInputElement).checked).toBe(true)
+    await radios[1]!.setValue(true)
+    expect(wrapper.emitted('update:modelValue')?.at(-1)).toEqual(['mi'])
+  })
+
+  it('ticks checkboxes into a list and describes the group by its error', async () => {
+    const wrapper = await mountSuspended(FormChoiceGroup, {
+      props: { legend: 'Body areas', type: 'checkbox', options, modelValue: ['knee'], error: 'Pick at most three' },
+    })
+    const boxes = wrapper.findAll('input[type="checkbox"]')
+    expect((boxes[0]!.element as HTMLInputElement).checked).toBe(true)
+    await boxes[1]!.setValue(true)
+    expect(wrapper.emitted('update:modelValue')?.at(-1)).toEqual([['knee', 'calf']])
+    const describedBy = wrapper.get('fieldset').attributes('aria-describedby')!
+    expect(wrapper.get(`#${CSS.escape(describedBy)}`).text()).toBe('Pick at most three')
   })
 })
