@@ -6,6 +6,8 @@ export interface FieldControlProps {
   hint?: string
   id?: string
   labelClass?: string
+  /** Extra classes for the control itself (e.g. a compact filter), beside `field`. */
+  controlClass?: string
 }
 
 /**
@@ -21,6 +23,7 @@ export function useFieldControl(props: FieldControlProps) {
     control: (field: Record<string, unknown>) => ({
       ...Object.fromEntries(Object.entries(attrs).filter(([key]) => key !== 'class' && key !== 'style')),
       name: props.name,
+      class: props.controlClass,
       ...field,
     }),
   }
