@@ -59,5 +59,20 @@ export function useZodForm<S extends z.ZodObject>(schema: S, initial: z.input<S>
     }
   }
 
-  return { values, errors, formError, pending, touch, submit, reset }
+  /**
+   * Everything a field component needs for one key, to spread with `v-bind="field('email')"`:
+   * its name, value and setter, its shown error, and touching it on blur.
+   */
+  function field<K extends keyof z.input<S> & string>(name: K) {
+    return {
+      'name': name,
+      'modelValue': values[name],
+      // The control hands back its own value type (a select's, a text box's); the schema checks it.
+      'onUpdate:modelValue': (value: unknown) => { values[name] = value as z.input<S>[K] },
+      'error': errors.value[name],
+      'onBlur': () => touch(name),
+    }
+  }
+
+  return { values, errors, formError, pending, touch, submit, reset, field }
 }

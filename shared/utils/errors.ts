@@ -18,3 +18,9 @@ export function fieldErrors(error: z.ZodError): FieldMessages {
   }
   return fields
 }
+
+/** The message for a field or anything under it (`series` finds `series.weeks`); the first key given wins. */
+export function errorUnder(fields: FieldMessages, ...keys: string[]): string | undefined {
+  return keys.map(key => fields[key]).find(Boolean)
+    ?? Object.entries(fields).find(([key]) => keys.some(prefix => key.startsWith(`${prefix}.`)))?.[1]
+}

@@ -6,6 +6,15 @@ import { checkNumber } from './numbers'
 export const MILE_M = 1609.344
 export const MARATHON_M = 42_195
 
+/** Race distances offered for a benchmark result: the short name (profile) and the spelled-out one (first visit). */
+export const benchmarkDistances = [
+  { meters: 5000, short: '5K', spelled: '5 km' },
+  { meters: 10_000, short: '10K', spelled: '10 km' },
+  { meters: 21_097.5, short: 'Half marathon', spelled: 'Half marathon' },
+  { meters: MARATHON_M, short: 'Marathon', spelled: 'Marathon' },
+  { meters: MILE_M, short: 'Mile', spelled: '1 mile' },
+] as const
+
 const MAX_DURATION_S = 1000 * 3600
 const MAX_DISTANCE_M = 1_000_000
 // Six hours a kilometre: slower than a steep hike, so anything above is a typo.

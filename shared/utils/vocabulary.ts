@@ -151,3 +151,10 @@ export function plural(count: number, singular: string, pluralForm = `${singular
 
 /** The unit of session load wherever it is shown or compared (Foster 2001: RPE × minutes). */
 export const LOAD_UNIT = 'effort × min'
+
+/** `{ value, label }` pairs for a select or a group of choices, in the vocabulary's order. */
+export function choices<T extends string>(values: readonly T[], labels: Record<T, string>) {
+  return values.map(value => ({ value, label: labels[value] }))
+}
+
+export const bodyAreaOptions = choices(bodyAreas, bodyAreaLabels)
