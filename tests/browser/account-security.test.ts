@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { launchBrowser, newContext } from '../support/browser'
+import { launchBrowser, newContext, signInThroughPage } from '../support/browser'
 import { ApiClient } from '../support/client'
 import { startStack, type Stack } from '../support/stack'
 import { PASSWORD, registerCoach } from '../support/team'
@@ -26,11 +26,7 @@ describe('password and sign-in on the team page', () => {
     expect((await otherDevice.post('/api/auth/login', { email, password: PASSWORD })).status).toBe(200)
 
     const context = await newContext(browser, 'phone')
-    const page = await context.newPage()
-    await page.goto(`${stack.url}/login`)
-    await page.getByLabel('E-mail').fill(email)
-    await page.getByLabel('Password').fill(PASSWORD)
-    await page.getByRole('button', { name: 'Sign in' }).click()
+    const page = await signInThroughPage(context, stack.url, email)
     await page.waitForURL(/\/(coach|team)/)
     await page.goto(`${stack.url}/team`)
     // Wait for the page to come alive, so the form is sent by the app and not by the browser.

@@ -1,7 +1,7 @@
 import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
-import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
+import { launchBrowser, newContext, signInThroughPage, screenshotPath, viewports } from '../support/browser'
 import { ApiClient, uniqueEmail } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
 import { hillSteps, insertRoutine, openTestDb } from '../support/planner'
@@ -22,13 +22,7 @@ afterAll(async () => {
 })
 
 async function signIn(context: BrowserContext, email: string) {
-  const page = await context.newPage()
-  await page.goto(`${stack.url}/login`)
-  await page.getByLabel('E-mail').fill(email)
-  await page.getByLabel('Password').fill(PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(url => !url.pathname.startsWith('/login'))
-  return page
+  return signInThroughPage(context, stack.url, email)
 }
 
 describe('a new club in Chromium', () => {

@@ -2,10 +2,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import type { Database } from '../../server/db/client'
 import { addDays, todayIn } from '../../shared/utils/dates'
-import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
+import { launchBrowser, newContext, screenshotPath, viewports, signInThroughPage } from '../support/browser'
 import { createRoutine, insertHistory, insertPainFlag, openTestDatabase } from '../support/insights-data'
 import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { addAthlete, registerCoach } from '../support/team'
 
 let stack: Stack
 let browser: Browser
@@ -47,11 +47,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('insights at
     await insertPainFlag(db, { teamId, athleteId: athlete.userId, sessionId: sessions.find(s => s.day === addDays(today, -1))!.id, pain: 7, area: 'knee' })
 
     const context = await newContext(browser, size)
-    const page = await context.newPage()
-    await page.goto(`${stack.url}/login`)
-    await page.getByLabel('E-mail').fill(email)
-    await page.getByLabel('Password').fill(PASSWORD)
-    await page.getByRole('button', { name: 'Sign in' }).click()
+    const page = await signInThroughPage(context, stack.url, email)
     await page.waitForURL(/\/coach$/)
 
     await page.goto(`${stack.url}/insights`)
@@ -86,11 +82,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('insights at
 
     // The athlete reads the reply on their progress page.
     const athleteContext = await newContext(browser, size)
-    const athletePage = await athleteContext.newPage()
-    await athletePage.goto(`${stack.url}/login`)
-    await athletePage.getByLabel('E-mail').fill(athlete.email)
-    await athletePage.getByLabel('Password').fill(PASSWORD)
-    await athletePage.getByRole('button', { name: 'Sign in' }).click()
+    const athletePage = await signInThroughPage(athleteContext, stack.url, athlete.email)
     await athletePage.waitForURL(/\/today$/)
     await athletePage.goto(`${stack.url}/progress`)
     await athletePage.getByRole('heading', { name: 'Replies from your coach' }).waitFor()

@@ -1,10 +1,10 @@
 import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
-import { launchBrowser, newContext, screenshotPath } from '../support/browser'
+import { launchBrowser, newContext, signInThroughPage, screenshotPath } from '../support/browser'
 import { insertRoutine, openTestDb } from '../support/planner'
 import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { addAthlete, registerCoach } from '../support/team'
 
 let stack: Stack
 let browser: Browser
@@ -20,13 +20,7 @@ afterAll(async () => {
 })
 
 async function signIn(context: Awaited<ReturnType<typeof newContext>>, email: string) {
-  const page = await context.newPage()
-  await page.goto(`${stack.url}/login`)
-  await page.getByLabel('E-mail').fill(email)
-  await page.getByLabel('Password').fill(PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(url => !url.pathname.startsWith('/login'))
-  return page
+  return signInThroughPage(context, stack.url, email)
 }
 
 describe('planner in Chromium', () => {

@@ -2,9 +2,9 @@ import { createClient } from '@libsql/client'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { makeDemoClip } from '../../seeds/clip'
-import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
+import { launchBrowser, newContext, screenshotPath, viewports, signInThroughPage } from '../support/browser'
 import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { addAthlete, registerCoach } from '../support/team'
 
 let stack: Stack
 let browser: Browser
@@ -54,12 +54,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     sql.close()
 
     const context = await newContext(browser, size)
-    const page = await context.newPage()
-    await page.goto(`${stack.url}/login?next=/routines/new`)
-    await page.getByLabel('E-mail').fill(email)
-    await page.getByLabel('Password').fill(PASSWORD)
-    await page.getByRole('button', { name: 'Sign in' }).click()
-    await page.waitForURL(/\/routines\/new$/)
+    const page = await signInThroughPage(context, stack.url, email, { next: '/routines/new' })
     await page.getByRole('heading', { name: 'New routine' }).waitFor()
 
     // Nothing is flagged on a fresh page; leaving the empty title flags it, typing one clears it.

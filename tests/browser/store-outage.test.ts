@@ -4,7 +4,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import { makeDemoClip } from '../../seeds/clip'
-import { launchBrowser, newContext, screenshotPath } from '../support/browser'
+import { launchBrowser, newContext, screenshotPath, signInThroughPage } from '../support/browser'
 import { Fixtures } from '../support/fixtures'
 import { startStack, type Stack } from '../support/stack'
 import { registerCoach } from '../support/team'
@@ -34,12 +34,7 @@ describe('the clip store goes down during an upload', () => {
     const fixtures = new Fixtures(stack)
     const exercise = await fixtures.exercise(team.teamId, { name: 'Single-leg calf raise' })
     const context = await newContext(browser, 'phone')
-    const page = await context.newPage()
-    await page.goto(`${stack.url}/login`)
-    await page.getByLabel('E-mail').fill(team.email)
-    await page.getByLabel('Password').fill('long-enough-password')
-    await page.getByRole('button', { name: 'Sign in' }).click()
-    await page.waitForURL(url => !url.pathname.startsWith('/login'))
+    const page = await signInThroughPage(context, stack.url, team.email)
 
     await stack.s3.stop()
     await page.goto(`${stack.url}/exercises/${exercise.id}`)

@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs'
 import { join, resolve } from 'node:path'
-import { chromium, type Browser, type BrowserContext } from 'playwright-core'
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import { PASSWORD } from './team'
 
 export const artifacts = resolve(import.meta.dirname, '../artifacts')
 
@@ -32,4 +33,19 @@ export async function newContext(browser: Browser, size: keyof typeof viewports 
 export function screenshotPath(name: string) {
   mkdirSync(artifacts, { recursive: true })
   return join(artifacts, `${name}.png`)
+}
+
+/**
+ * Signs in through the sign-in page in a new tab of `context` and waits until the app has moved on
+ * (to `next` when given). The sign-in button stays disabled until the page's script runs, so the
+ * click waits for that by itself.
+ */
+export async function signInThroughPage(context: BrowserContext, baseUrl: string, email: string, options: { password?: string, next?: string } = {}): Promise<Page> {
+  const page = await context.newPage()
+  await page.goto(`${baseUrl}/login${options.next ? `?next=${options.next}` : ''}`)
+  await page.getByLabel('E-mail').fill(email)
+  await page.getByLabel('Password').fill(options.password ?? PASSWORD)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await page.waitForURL(url => (options.next ? url.pathname === options.next : !url.pathname.startsWith('/login')), { timeout: 30_000 })
+  return page
 }
