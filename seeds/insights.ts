@@ -52,7 +52,7 @@ export const seedInsights: SeedStep = async ({ db, teamId, users, log }) => {
           startedAt, finishedAt: new Date(startedAt.getTime() + minutes * 60_000), day,
           durationS: minutes * 60, sessionRpe: rpe, load: rpe * minutes,
           pain: painful ? 6 : null, painArea: painful ? 'knee' : null,
-          note: painful ? 'Outside of the right knee ached on the step-downs.' : daysAgo % 9 === 0 ? 'Felt springy on the calf raises.' : '',
+          note: painful ? (daysAgo === 0 ? 'Outside of the right knee ached on the step-downs.' : 'Right knee niggled on the step-downs; fine on the flat.') : daysAgo % 9 === 0 ? 'Felt springy on the calf raises.' : '',
         }).returning()
         const kg = 16 + index * 2 + Math.floor((41 - daysAgo) / 7) * 2
         await tx.insert(entryLogs).values([1, 2, 3].map(set => ({ teamId, sessionId: session!.id, athleteId, idempotencyKey: `demo-${set}`, stepId: 'goblet-squat', exerciseId: squat.id, set, reps: 8, kg })))
