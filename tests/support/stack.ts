@@ -123,7 +123,7 @@ export async function startStack(extraEnv: Record<string, string> = {}, options:
     },
   }
 
-  const url = `http://127.0.0.1:${appPort}`
+  let url = `http://127.0.0.1:${appPort}`
   const databaseUrl = `file:${join(dir, 'test.db')}`
   const env: Record<string, string> = {
     PATH: process.env.PATH ?? '',
@@ -154,7 +154,24 @@ export async function startStack(extraEnv: Record<string, string> = {}, options:
   async function stopApp() {
     await app?.stop()
   }
-  if (options.startApp !== false) await startApp()
+  /**
+   * The first start may find its port taken: a free port is only free until something else (another
+   * test file's outgoing connection, say) takes it. Then the app starts on another free port.
+   */
+  async function firstStart() {
+    for (let attempt = 1; ; attempt++) {
+      try {
+        return await startApp()
+      }
+      catch (error) {
+        if (attempt >= 5 || !String(error).includes('EADDRINUSE')) throw error
+        const port = await freePort()
+        url = `http://127.0.0.1:${port}`
+        Object.assign(env, { PORT: String(port), APP_URL: url, ...extraEnv })
+      }
+    }
+  }
+  if (options.startApp !== false) await firstStart()
 
   return {
     url,
