@@ -1,7 +1,7 @@
 import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
-import { launchBrowser, newContext, signInThroughPage, screenshotPath, viewports } from '../support/browser'
+import { launchBrowser, newContext, signInThroughPage, screenshotPath, viewports, waitForAuthForm } from '../support/browser'
 import { ApiClient, uniqueEmail } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
 import { hillSteps, insertRoutine, openTestDb } from '../support/planner'
@@ -34,6 +34,7 @@ describe('a new club in Chromium', () => {
     expect(await coach.locator('img').count()).toBe(0)
     await coach.getByRole('link', { name: 'Start a club' }).first().click()
     await coach.waitForURL(/\/register$/)
+    await waitForAuthForm(coach)
     await coach.getByLabel('Your name').fill('Morwen Tay')
     await coach.getByLabel('E-mail').fill(uniqueEmail('club'))
     await coach.getByLabel('Password').fill('a-good-long-password')
@@ -65,6 +66,7 @@ describe('a new club in Chromium', () => {
     const athleteContext = await newContext(browser, 'phone')
     const athlete = await athleteContext.newPage()
     await athlete.goto(linkIn(mail, /http:\/\/127\.0\.0\.1:\d+\/join\/[\w-]+/))
+    await waitForAuthForm(athlete)
     await athlete.getByLabel('Your name').fill('Tamsin Rook')
     await athlete.getByLabel('Password').fill('tamsins-own-password')
     await athlete.keyboard.press('Enter')

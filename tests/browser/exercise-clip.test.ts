@@ -4,7 +4,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
 import { makeDemoClip } from '../../seeds/clip'
-import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
+import { launchBrowser, newContext, screenshotPath, viewports, waitForAuthForm } from '../support/browser'
 import { uniqueEmail } from '../support/client'
 import { startStack, type Stack } from '../support/stack'
 
@@ -32,6 +32,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('exercise cl
     const context = await newContext(browser, size)
     const page = await context.newPage()
     await page.goto(`${stack.url}/register`)
+    await waitForAuthForm(page)
     await page.getByLabel('Your name').fill('Idris Fenn')
     await page.getByLabel('E-mail').fill(uniqueEmail('coach'))
     await page.getByLabel('Password').fill('a-good-long-password')

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
+import { launchBrowser, newContext, screenshotPath, viewports, waitForAuthForm } from '../support/browser'
 import { uniqueEmail } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
 import { startStack, type Stack } from '../support/stack'
@@ -23,6 +23,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('onboarding 
     const coachContext = await newContext(browser, size)
     const coach = await coachContext.newPage()
     await coach.goto(`${stack.url}/register`)
+    await waitForAuthForm(coach)
     await coach.getByLabel('Your name').fill('Morwen Tay')
     await coach.getByLabel('E-mail').fill(uniqueEmail('coach'))
     await coach.getByLabel('Password').fill('short')
@@ -51,6 +52,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('onboarding 
     const athlete = await athleteContext.newPage()
     await athlete.goto(link)
     await athlete.getByRole('heading', { name: 'Join Larchford Ridge Runners' }).waitFor()
+    await waitForAuthForm(athlete)
     await athlete.getByLabel('Your name').fill('Tamsin Rook')
     await athlete.getByLabel('Password').fill('tamsins-own-password')
     await athlete.keyboard.press('Enter')

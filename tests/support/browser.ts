@@ -36,13 +36,21 @@ export function screenshotPath(name: string) {
 }
 
 /**
+ * Waits until a sign-in, register, join or reset form has come alive: its button is enabled once the page's
+ * script runs. Fill the fields after this — text typed before would be reset by the page's own state.
+ */
+export async function waitForAuthForm(page: Page) {
+  await page.locator('form[method="post"] button[type="submit"]:enabled').first().waitFor()
+}
+
+/**
  * Signs in through the sign-in page in a new tab of `context` and waits until the app has moved on
- * (to `next` when given). The sign-in button stays disabled until the page's script runs, so the
- * click waits for that by itself.
+ * (to `next` when given).
  */
 export async function signInThroughPage(context: BrowserContext, baseUrl: string, email: string, options: { password?: string, next?: string } = {}): Promise<Page> {
   const page = await context.newPage()
   await page.goto(`${baseUrl}/login${options.next ? `?next=${options.next}` : ''}`)
+  await waitForAuthForm(page)
   await page.getByLabel('E-mail').fill(email)
   await page.getByLabel('Password').fill(options.password ?? PASSWORD)
   await page.getByRole('button', { name: 'Sign in' }).click()
