@@ -8,7 +8,7 @@ import { gzipSync } from 'node:zlib'
 import autocannon from 'autocannon'
 import { createClient } from '@libsql/client'
 import { ApiClient } from '../tests/support/client'
-import { launchBrowser, newContext } from '../tests/support/browser'
+import { launchBrowser, newContext, readStepTimings, watchStepChanges } from '../tests/support/browser'
 import { logEverything, seedLoggingAthletes } from '../tests/support/logging-athletes'
 import { freePort, root, spawnApp, startStack, waitForServer } from '../tests/support/stack'
 
@@ -103,21 +103,10 @@ async function timerFigures(url: string, databaseUrl: string, cookie: string, em
     const page = await context.newPage()
     await page.goto(`${url}/session/${Number(assignment.rows[0]!.id)}`)
     await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
-    await page.evaluate(() => {
-      const seen: { index: number, at: number }[] = []
-      ;(window as unknown as { seenChanges: typeof seen }).seenChanges = seen
-      new MutationObserver(() => {
-        const element = document.querySelector('[data-testid="current-step"]')
-        const index = Number(element?.getAttribute('data-index'))
-        if (element && seen.at(-1)?.index !== index) seen.push({ index, at: performance.now() })
-      }).observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-index'] })
-    })
+    await watchStepChanges(page)
     await page.getByRole('button', { name: 'Start session' }).click()
     await page.getByRole('heading', { name: 'Well done — how did it go?' }).waitFor({ timeout: 60_000 })
-    const result = await page.evaluate(() => ({
-      timings: (window as unknown as { switchbackPlayer?: { timings: { index: number, scheduledAt: number, shownAt: number }[] } }).switchbackPlayer?.timings ?? [],
-      seen: (window as unknown as { seenChanges: { index: number, at: number }[] }).seenChanges,
-    }))
+    const result = await readStepTimings(page)
     if (!result.timings.length) return undefined
     const start = result.timings[0]!.scheduledAt - durations[0]! * 1000
     const rendered = result.timings.map(timing => timing.shownAt - timing.scheduledAt)

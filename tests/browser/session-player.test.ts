@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
+import { launchBrowser, newContext, screenshotPath, viewports, readStepTimings, watchStepChanges } from '../support/browser'
 import { Fixtures } from '../support/fixtures'
 import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
@@ -220,21 +220,10 @@ describe('the session player', () => {
     await page.goto(`${stack.url}/session/${id}`)
     await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
     // Note the moment each step's name reaches the page, independently of the player's own record.
-    await page.evaluate(() => {
-      const seen: { index: number, at: number }[] = []
-      ;(window as unknown as { seenChanges: typeof seen }).seenChanges = seen
-      new MutationObserver(() => {
-        const element = document.querySelector('[data-testid="current-step"]')
-        const index = Number(element?.getAttribute('data-index'))
-        if (element && seen.at(-1)?.index !== index) seen.push({ index, at: performance.now() })
-      }).observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-index'] })
-    })
+    await watchStepChanges(page)
     await page.getByRole('button', { name: 'Start session' }).click()
     await page.getByRole('heading', { name: 'Well done — how did it go?' }).waitFor({ timeout: 30_000 })
-    const result = await page.evaluate(() => {
-      const player = (window as unknown as { switchbackPlayer: { timings: { index: number, scheduledAt: number, shownAt: number }[] } }).switchbackPlayer
-      return { timings: player.timings, seen: (window as unknown as { seenChanges: { index: number, at: number }[] }).seenChanges }
-    })
+    const result = await readStepTimings(page)
     expect(result.timings).toHaveLength(durations.length)
     // Each change was due exactly one segment after the previous (the schedule itself never drifts).
     const gaps = result.timings.slice(1).map((timing, index) => timing.scheduledAt - result.timings[index]!.scheduledAt)

@@ -57,3 +57,31 @@ export async function signInThroughPage(context: BrowserContext, baseUrl: string
   await page.waitForURL(url => (options.next ? url.pathname === options.next : !url.pathname.startsWith('/login')), { timeout: 30_000 })
   return page
 }
+
+export interface StepTimings {
+  /** The player's own record: when each step change was due and when it was shown. */
+  timings: { index: number, scheduledAt: number, shownAt: number }[]
+  /** When each step's name reached the page's DOM, noted independently of the player. */
+  seen: { index: number, at: number }[]
+}
+
+/** Starts noting the moment each step's name reaches the page (call before starting the session). */
+export async function watchStepChanges(page: Page) {
+  await page.evaluate(() => {
+    const seen: { index: number, at: number }[] = []
+    ;(window as unknown as { seenChanges: typeof seen }).seenChanges = seen
+    new MutationObserver(() => {
+      const element = document.querySelector('[data-testid="current-step"]')
+      const index = Number(element?.getAttribute('data-index'))
+      if (element && seen.at(-1)?.index !== index) seen.push({ index, at: performance.now() })
+    }).observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-index'] })
+  })
+}
+
+/** The player's step timings and the DOM's, after `watchStepChanges` and a finished session. */
+export async function readStepTimings(page: Page): Promise<StepTimings> {
+  return page.evaluate(() => ({
+    timings: (window as unknown as { switchbackPlayer?: { timings: StepTimings['timings'] } }).switchbackPlayer?.timings ?? [],
+    seen: (window as unknown as { seenChanges?: StepTimings['seen'] }).seenChanges ?? [],
+  }))
+}

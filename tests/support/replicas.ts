@@ -1,5 +1,5 @@
 import { request as httpRequest, createServer, type Server } from 'node:http'
-import { freePort, spawnApp, startStack, type AppProcess, type Stack } from './stack'
+import { spawnApp, spawnAppOnFreePort, startStack, type AppProcess, type Stack } from './stack'
 
 export interface Replicas {
   stack: Stack
@@ -43,19 +43,10 @@ export async function startReplicas(count = 3, extraEnv: Record<string, string> 
   const ports: number[] = []
   const apps: AppProcess[] = []
   // One at a time: the first one migrates the new database, the others find it ready.
-  // A port chosen as free can be taken before the app listens on it: then another is chosen.
   for (let index = 0; index < count; index += 1) {
-    for (let attempt = 1; ; attempt += 1) {
-      const port = await freePort()
-      try {
-        apps.push(await spawnApp({ ...stack.env, PORT: String(port) }))
-        ports.push(port)
-        break
-      }
-      catch (error) {
-        if (attempt >= 5 || !String(error).includes('EADDRINUSE')) throw error
-      }
-    }
+    const started = await spawnAppOnFreePort(port => ({ ...stack.env, PORT: String(port) }))
+    apps.push(started.app)
+    ports.push(started.port)
   }
   const balancer = await roundRobin(Number(new URL(stack.url).port), () => apps)
   return {

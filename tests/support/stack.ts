@@ -91,6 +91,23 @@ export async function spawnApp(env: Record<string, string>): Promise<AppProcess>
 }
 
 /**
+ * Starts one built app on `port` (a free one when not given). A port chosen as free is only free until
+ * something else takes it (another test file's outgoing connection, say): then the app starts on another.
+ */
+export async function spawnAppOnFreePort(envFor: (port: number) => Record<string, string>, port?: number): Promise<{ app: AppProcess, port: number }> {
+  let chosen = port ?? await freePort()
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      return { app: await spawnApp(envFor(chosen)), port: chosen }
+    }
+    catch (error) {
+      if (attempt >= 5 || !String(error).includes('EADDRINUSE')) throw error
+      chosen = await freePort()
+    }
+  }
+}
+
+/**
  * The real built server (`.output`, from `npm run build`) against a temporary SQLite file,
  * a real S3-compatible store (s3rver) and an in-process SMTP catcher, each on a free port.
  */
@@ -154,22 +171,11 @@ export async function startStack(extraEnv: Record<string, string> = {}, options:
   async function stopApp() {
     await app?.stop()
   }
-  /**
-   * The first start may find its port taken: a free port is only free until something else (another
-   * test file's outgoing connection, say) takes it. Then the app starts on another free port.
-   */
   async function firstStart() {
-    for (let attempt = 1; ; attempt++) {
-      try {
-        return await startApp()
-      }
-      catch (error) {
-        if (attempt >= 5 || !String(error).includes('EADDRINUSE')) throw error
-        const port = await freePort()
-        url = `http://127.0.0.1:${port}`
-        Object.assign(env, { PORT: String(port), APP_URL: url, ...extraEnv })
-      }
-    }
+    const started = await spawnAppOnFreePort(port => ({ ...env, PORT: String(port), APP_URL: `http://127.0.0.1:${port}`, ...extraEnv }), appPort)
+    app = started.app
+    url = `http://127.0.0.1:${started.port}`
+    Object.assign(env, { PORT: String(started.port), APP_URL: url, ...extraEnv })
   }
   if (options.startApp !== false) await firstStart()
 
