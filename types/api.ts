@@ -25,3 +25,7 @@ export type MyAssignment = MyAssignments['assignments'][number]
 export type ProfileView = ApiResponse<'/api/me/profile'>
 export type PacesView = ApiResponse<'/api/me/paces'>
 export type ClipPlayback = ApiResponse<'/api/exercises/:id/clip'>
+export type ExerciseList = ApiResponse<'/api/exercises'>
+export type ClipUploadUrl = ApiResponse<'/api/exercises/:id/clip/upload-url', 'post'>
+export type PlannedAssignments = ApiResponse<'/api/assignments'>
+export type AssignmentsCreated = ApiResponse<'/api/assignments', 'post'>

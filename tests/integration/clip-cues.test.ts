@@ -1,16 +1,15 @@
-import { createClient } from '@libsql/client'
 import { BufferTarget, EncodedPacket, EncodedVideoPacketSource, MovOutputFormat, Mp4OutputFormat, Output, WebMOutputFormat } from 'mediabunny'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import { svgToVp8 } from '../../seeds/clip'
 import { ApiClient, type FieldError } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
+import type { ExerciseView } from '../../shared/schemas/exercise'
+import type { ClipUploadUrl } from '../../types/api'
 
-interface Exercise { id: number, hasClip: boolean, clip: { contentType: string, size: number, durationSeconds: number | null, width: number | null, height: number | null } | null }
 interface Cue { id: number, startSeconds: number, endSeconds: number | null, text: string }
-interface UploadUrl { url: string, key: string }
 
-let stack: Stack
+const running = useStack()
 let coach: ApiClient
 let teamId: number
 
@@ -30,44 +29,31 @@ async function makeClip(container: 'webm' | 'mp4' | 'mov', frames: number, width
   return new Uint8Array(output.target.buffer!)
 }
 
-async function sql(statement: string, args: (string | number)[] = []) {
-  const db = createClient({ url: stack.databaseUrl })
-  try {
-    return (await db.execute({ sql: statement, args })).rows
-  }
-  finally {
-    db.close()
-  }
-}
+const sql = (statement: string, args: (string | number)[] = []) => running.fixtures.rows(statement, args)
 
 let counter = 0
 async function exerciseWithClip(client: ApiClient, body: Uint8Array, contentType = 'video/webm') {
   counter += 1
-  const created = await client.post<Exercise>('/api/exercises', { name: `A-skip ${counter}`, category: 'drill', cues: ['Knee drives up', 'Heel stays down'] })
+  const created = await client.post<ExerciseView>('/api/exercises', { name: `A-skip ${counter}`, category: 'drill', cues: ['Knee drives up', 'Heel stays down'] })
   expect(created.status, created.text).toBe(201)
   const confirmed = await uploadClip(client, created.data.id, body, contentType)
   return confirmed
 }
 
 async function uploadClip(client: ApiClient, exerciseId: number, body: Uint8Array, contentType: string) {
-  const signed = await client.post<UploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
+  const signed = await client.post<ClipUploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
   expect(signed.status, signed.text).toBe(200)
   const put = await fetch(signed.data.url, { method: 'PUT', body: Buffer.from(body), headers: { 'content-type': contentType } })
   expect(put.status).toBe(200)
-  const confirmed = await client.post<Exercise>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
+  const confirmed = await client.post<ExerciseView>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
   expect(confirmed.status, confirmed.text).toBe(200)
   return confirmed.data
 }
 
 beforeAll(async () => {
-  stack = await startStack()
-  const registered = await registerCoach(stack, 'Larchford Ridge Runners')
+  const registered = await registerCoach(running.stack, 'Larchford Ridge Runners')
   coach = registered.coach
   teamId = registered.teamId
-})
-
-afterAll(async () => {
-  await stack?.stop()
 })
 
 describe('clip length and picture size at confirm', () => {
@@ -184,10 +170,10 @@ describe('cues at moments', () => {
   it('serves the track to the team\'s coaches and to athletes with the exercise in an assignment; 404 for everyone else', async () => {
     const exercise = await exerciseWithClip(coach, await makeClip('webm', 20, 160, 120))
     await coach.post(`/api/exercises/${exercise.id}/cues`, { startSeconds: 0.5, text: 'Tall' })
-    const { athlete, userId } = await addAthlete(stack, coach)
-    const { athlete: teammate } = await addAthlete(stack, coach, { name: 'Ivo Penhale' })
-    const { coach: otherCoach } = await registerCoach(stack, 'Another club')
-    const stranger = new ApiClient(stack.url)
+    const { athlete, userId } = await addAthlete(running.stack, coach)
+    const { athlete: teammate } = await addAthlete(running.stack, coach, { name: 'Ivo Penhale' })
+    const { coach: otherCoach } = await registerCoach(running.stack, 'Another club')
+    const stranger = new ApiClient(running.stack.url)
 
     expect((await athlete.get(`/captions/${exercise.id}.vtt`)).status).toBe(404)
     const [routine] = await sql(`insert into routines (team_id, title, category, steps) values (?, 'Drills', 'drills', '[]') returning id`, [teamId])

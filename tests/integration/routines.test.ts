@@ -1,30 +1,18 @@
-import { createClient, type Client } from '@libsql/client'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { ApiClient, type FieldError } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
 import type { RoutinePreview } from '../../shared/types/routine'
 import type { RoutineStep } from '../../shared/schemas/routine-steps'
+import { useStack } from '../support/hooks'
 
-let stack: Stack
-let sql: Client
+const running = useStack()
 
 interface Routine { id: number, title: string, category: string, description: string, version: number, steps: RoutineStep[], exercises: { id: number, name: string }[], archivedAt: string | null }
 interface List { items: { id: number, title: string, category: string, totals: { durationS: number, workS: number } }[], total: number }
 interface Conflict extends FieldError { data?: { fields?: Record<string, string>, currentVersion?: number } }
 
-beforeAll(async () => {
-  stack = await startStack()
-  sql = createClient({ url: stack.databaseUrl })
-})
-
-afterAll(async () => {
-  sql?.close()
-  await stack?.stop()
-})
-
 async function insertExercise(teamId: number, name: string, options: { category?: string, cautions?: { text: string, bodyAreas: string[] }[], archived?: boolean } = {}) {
-  const result = await sql.execute({
+  const result = await running.db.execute({
     sql: 'insert into exercises (team_id, name, category, cautions, archived_at) values (?, ?, ?, ?, ?) returning id',
     args: [teamId, name, options.category ?? 'strength', JSON.stringify(options.cautions ?? []), options.archived ? Date.now() : null],
   })
@@ -32,12 +20,12 @@ async function insertExercise(teamId: number, name: string, options: { category?
 }
 
 async function usedExercises(routineId: number) {
-  const result = await sql.execute({ sql: 'select exercise_id from routine_exercises where routine_id = ? order by exercise_id', args: [routineId] })
+  const result = await running.db.execute({ sql: 'select exercise_id from routine_exercises where routine_id = ? order by exercise_id', args: [routineId] })
   return result.rows.map(row => Number(row.exercise_id))
 }
 
 async function routineCount(teamId: number) {
-  const result = await sql.execute({ sql: 'select count(*) as n from routines where team_id = ?', args: [teamId] })
+  const result = await running.db.execute({ sql: 'select count(*) as n from routines where team_id = ?', args: [teamId] })
   return Number(result.rows[0]!.n)
 }
 
@@ -57,7 +45,7 @@ const hillSteps = (): RoutineStep[] => [
 
 describe('routines: create, read, list, save', () => {
   it('creates, reads back, lists with totals and saves new versions', async () => {
-    const { coach, teamId } = await registerCoach(stack)
+    const { coach, teamId } = await registerCoach(running.stack)
     const calf = await insertExercise(teamId, 'Single-leg calf raise', { cautions: [{ text: 'Slow on the way down', bodyAreas: ['achilles', 'calf'] }] })
     const steps: RoutineStep[] = [...hillSteps(), { id: 'calf', type: 'sets', exerciseId: calf, sets: 3, perSet: { by: 'reps', reps: 12 }, restSeconds: 60 }]
     const created = await coach.post<{ id: number, version: number }>('/api/routines', { title: 'Ridge Lane short hills', category: 'hills', description: 'Eight climbs', steps })
@@ -93,7 +81,7 @@ describe('routines: create, read, list, save', () => {
   })
 
   it('refuses a stale save with 409 and keeps the newer version', async () => {
-    const { coach } = await registerCoach(stack)
+    const { coach } = await registerCoach(running.stack)
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Strides', category: 'drills', steps: hillSteps() })
     const body = { title: 'Edited in tab one', category: 'drills', description: '', steps: hillSteps(), version: 1 }
     expect((await coach.put(`/api/routines/${id}`, body)).status).toBe(200)
@@ -109,7 +97,7 @@ describe('routines: create, read, list, save', () => {
   })
 
   it('duplicates with a fresh version and its own exercise index, and archives', async () => {
-    const { coach, teamId } = await registerCoach(stack)
+    const { coach, teamId } = await registerCoach(running.stack)
     const squat = await insertExercise(teamId, 'Goblet squat')
     const steps: RoutineStep[] = [{ id: 'sq', type: 'sets', exerciseId: squat, sets: 3, perSet: { by: 'reps', reps: 10 }, restSeconds: 90, target: { type: 'load', kg: 16 } }]
     const { data: original } = await coach.post<{ id: number }>('/api/routines', { title: 'Gym circuit', category: 'strength', steps })
@@ -136,7 +124,7 @@ describe('routines: create, read, list, save', () => {
 
 describe('routines: bad input', () => {
   it('names the step and field of an invalid tree and saves nothing', async () => {
-    const { coach, teamId } = await registerCoach(stack)
+    const { coach, teamId } = await registerCoach(running.stack)
     const before = await routineCount(teamId)
     const bad = hillSteps()
     ;(bad[1] as Extract<RoutineStep, { type: 'repeat' }>).steps[1] = { id: 'down', type: 'block', kind: 'recovery', measure: { by: 'time', seconds: 0 } }
@@ -170,8 +158,8 @@ describe('routines: bad input', () => {
   })
 
   it('rejects exercises from another team, and newly added archived ones', async () => {
-    const mine = await registerCoach(stack)
-    const theirs = await registerCoach(stack, 'Brackenmoor Road Runners')
+    const mine = await registerCoach(running.stack)
+    const theirs = await registerCoach(running.stack, 'Brackenmoor Road Runners')
     const foreign = await insertExercise(theirs.teamId, 'Their hill sprint', { category: 'hill' })
     const old = await insertExercise(mine.teamId, 'Old lunge', { archived: true })
     const own = await insertExercise(mine.teamId, 'Step-up')
@@ -191,7 +179,7 @@ describe('routines: bad input', () => {
     // An exercise archived after it went into a routine may stay there.
     const kept = await insertExercise(mine.teamId, 'Soon archived')
     const { data: routine } = await mine.coach.post<{ id: number }>('/api/routines', { title: 'Keeps it', category: 'strength', steps: [step('a', kept)] })
-    await sql.execute({ sql: 'update exercises set archived_at = ? where id = ?', args: [Date.now(), kept] })
+    await running.db.execute({ sql: 'update exercises set archived_at = ? where id = ?', args: [Date.now(), kept] })
     const resaved = await mine.coach.put(`/api/routines/${routine.id}`, { title: 'Keeps it', category: 'strength', description: '', steps: [step('a', kept), step('b', own)], version: 1 })
     expect(resaved.status).toBe(200)
     expect(await usedExercises(routine.id)).toEqual([own, kept].sort((x, y) => x - y))
@@ -204,9 +192,9 @@ describe('routines: bad input', () => {
 
 describe('routines: who may do what', () => {
   it('hides other teams\' routines behind 404, keeps athletes out with 403 and strangers with 401', async () => {
-    const owner = await registerCoach(stack)
-    const other = await registerCoach(stack, 'Quenmere Striders')
-    const { athlete } = await addAthlete(stack, owner.coach)
+    const owner = await registerCoach(running.stack)
+    const other = await registerCoach(running.stack, 'Quenmere Striders')
+    const { athlete } = await addAthlete(running.stack, owner.coach)
     const { data: { id } } = await owner.coach.post<{ id: number }>('/api/routines', { title: 'Private hills', category: 'hills', steps: hillSteps() })
     const body = { title: 'Taken over', category: 'hills', description: '', steps: hillSteps(), version: 1 }
 
@@ -223,7 +211,7 @@ describe('routines: who may do what', () => {
     expect((await athlete.put(`/api/routines/${id}`, body)).status).toBe(403)
     expect((await athlete.post('/api/routines', { title: 'Mine', category: 'hills', steps: [] })).status).toBe(403)
 
-    const stranger = new ApiClient(stack.url)
+    const stranger = new ApiClient(running.stack.url)
     expect((await stranger.get('/api/routines')).status).toBe(401)
     expect((await stranger.post('/api/routines', { title: 'x', category: 'hills', steps: [] })).status).toBe(401)
     expect((await owner.coach.get<Routine>(`/api/routines/${id}`)).data.title).toBe('Private hills')
@@ -232,10 +220,10 @@ describe('routines: who may do what', () => {
 
 describe('routines: preview for an athlete', () => {
   it('fills in the athlete\'s paces, grade-adjusted hill paces, %1RM loads and matching cautions', async () => {
-    const { coach, teamId } = await registerCoach(stack)
-    const { userId: athleteId } = await addAthlete(stack, coach, { name: 'Tamsin Rook' })
-    await sql.execute({ sql: 'update athlete_profiles set benchmark_distance_m = 10000, benchmark_time_s = 2400, benchmark_date = ? where user_id = ?', args: ['2026-09-20', athleteId] })
-    await sql.execute({ sql: 'insert into injury_notes (team_id, athlete_id, body_area, status, note) values (?, ?, ?, ?, ?), (?, ?, ?, ?, ?)', args: [teamId, athleteId, 'achilles', 'active', 'Stiff in the mornings', teamId, athleteId, 'knee', 'resolved', 'Old niggle'] })
+    const { coach, teamId } = await registerCoach(running.stack)
+    const { userId: athleteId } = await addAthlete(running.stack, coach, { name: 'Tamsin Rook' })
+    await running.db.execute({ sql: 'update athlete_profiles set benchmark_distance_m = 10000, benchmark_time_s = 2400, benchmark_date = ? where user_id = ?', args: ['2026-09-20', athleteId] })
+    await running.db.execute({ sql: 'insert into injury_notes (team_id, athlete_id, body_area, status, note) values (?, ?, ?, ?, ?), (?, ?, ?, ?, ?)', args: [teamId, athleteId, 'achilles', 'active', 'Stiff in the mornings', teamId, athleteId, 'knee', 'resolved', 'Old niggle'] })
     const calf = await insertExercise(teamId, 'Single-leg calf raise', { cautions: [{ text: 'Lower slowly', bodyAreas: ['achilles', 'calf'] }, { text: 'Hold a rail for balance', bodyAreas: [] }] })
     const hill = await insertExercise(teamId, 'Hill sprint', { category: 'hill', cautions: [{ text: 'Walk down to protect the knees', bodyAreas: ['knee'] }] })
     const deadlift = await insertExercise(teamId, 'Romanian deadlift')
@@ -250,9 +238,9 @@ describe('routines: preview for an athlete', () => {
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Everything', category: 'mixed', steps })
 
     // A logged set of 80 kg × 5: Epley (1985) estimates 80 × (1 + 5/30) ≈ 93.3 kg.
-    const assignment = await sql.execute({ sql: 'insert into assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date) values (?, ?, ?, 1, ?, ?) returning id', args: [teamId, athleteId, id, JSON.stringify({ title: 'x', category: 'mixed', description: '', steps: [], exercises: [] }), '2026-11-02'] })
-    const session = await sql.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', args: [teamId, Number(assignment.rows[0]!.id), athleteId, 'c1', Date.now(), '2026-11-02'] })
-    await sql.execute({ sql: 'insert into entry_logs (team_id, session_id, athlete_id, idempotency_key, step_id, exercise_id, reps, kg) values (?, ?, ?, ?, ?, ?, ?, ?)', args: [teamId, Number(session.rows[0]!.id), athleteId, 'k1', 'rdl', deadlift, 5, 80] })
+    const assignment = await running.db.execute({ sql: 'insert into assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date) values (?, ?, ?, 1, ?, ?) returning id', args: [teamId, athleteId, id, JSON.stringify({ title: 'x', category: 'mixed', description: '', steps: [], exercises: [] }), '2026-11-02'] })
+    const session = await running.db.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', args: [teamId, Number(assignment.rows[0]!.id), athleteId, 'c1', Date.now(), '2026-11-02'] })
+    await running.db.execute({ sql: 'insert into entry_logs (team_id, session_id, athlete_id, idempotency_key, step_id, exercise_id, reps, kg) values (?, ?, ?, ?, ?, ?, ?, ?)', args: [teamId, Number(session.rows[0]!.id), athleteId, 'k1', 'rdl', deadlift, 5, 80] })
 
     const response = await coach.get<RoutinePreview>(`/api/routines/${id}/preview?athleteId=${athleteId}`)
     expect(response.status).toBe(200)
@@ -289,10 +277,10 @@ describe('routines: preview for an athlete', () => {
   })
 
   it('says what is missing without a benchmark, and refuses athletes outside the team', async () => {
-    const { coach } = await registerCoach(stack)
-    const { userId } = await addAthlete(stack, coach)
-    const other = await registerCoach(stack, 'Varrow Edge Harriers')
-    const { userId: outsider } = await addAthlete(stack, other.coach)
+    const { coach } = await registerCoach(running.stack)
+    const { userId } = await addAthlete(running.stack, coach)
+    const other = await registerCoach(running.stack, 'Varrow Edge Harriers')
+    const { userId: outsider } = await addAthlete(running.stack, other.coach)
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Hills', category: 'hills', steps: hillSteps() })
     const preview = await coach.get<RoutinePreview>(`/api/routines/${id}/preview?athleteId=${userId}`)
     expect(preview.status).toBe(200)

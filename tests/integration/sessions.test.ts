@@ -1,12 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
 import type { FieldError } from '../support/client'
-import { Fixtures } from '../support/fixtures'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
 
-let stack: Stack
-let fixtures: Fixtures
+const running = useStack()
 let team: Awaited<ReturnType<typeof registerCoach>>
 let athlete: Awaited<ReturnType<typeof addAthlete>>
 let teammate: Awaited<ReturnType<typeof addAthlete>>
@@ -28,22 +26,20 @@ interface Plan {
 }
 
 beforeAll(async () => {
-  stack = await startStack()
-  fixtures = new Fixtures(stack)
-  team = await registerCoach(stack)
-  athlete = await addAthlete(stack, team.coach, { name: 'Ffion Aske' })
-  teammate = await addAthlete(stack, team.coach, { name: 'Cai Penhallow' })
-  otherTeam = await registerCoach(stack, 'Brackenmoor Harriers')
-  outsider = await addAthlete(stack, otherTeam.coach, { name: 'Ilse Marr' })
+  team = await registerCoach(running.stack)
+  athlete = await addAthlete(running.stack, team.coach, { name: 'Ffion Aske' })
+  teammate = await addAthlete(running.stack, team.coach, { name: 'Cai Penhallow' })
+  otherTeam = await registerCoach(running.stack, 'Brackenmoor Harriers')
+  outsider = await addAthlete(running.stack, otherTeam.coach, { name: 'Ilse Marr' })
 
-  const squat = await fixtures.exercise(team.teamId, {
+  const squat = await running.fixtures.exercise(team.teamId, {
     name: 'Goblet squat',
     cues: ['Elbows inside the knees', 'Sit between the heels'],
     equipment: ['Kettlebell'],
     cautions: [{ text: 'Keep knees tracking over the toes; stop on sharp knee pain.', bodyAreas: ['knee'] }],
   })
-  const plank = await fixtures.exercise(team.teamId, { name: 'Front plank', equipment: ['Mat'], cautions: [{ text: 'Keep the lower back flat.', bodyAreas: ['lower_back'] }] })
-  const hill = await fixtures.exercise(team.teamId, { name: 'Hill run', category: 'hill' })
+  const plank = await running.fixtures.exercise(team.teamId, { name: 'Front plank', equipment: ['Mat'], cautions: [{ text: 'Keep the lower back flat.', bodyAreas: ['lower_back'] }] })
+  const hill = await running.fixtures.exercise(team.teamId, { name: 'Hill run', category: 'hill' })
   snapshot = {
     title: 'Knees and hills',
     category: 'mixed',
@@ -59,17 +55,12 @@ beforeAll(async () => {
       ] },
     ],
   }
-  await fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Aches on descents')
+  await running.fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Aches on descents')
   await athlete.athlete.patch('/api/me/profile', { benchmarkDistanceM: 5000, benchmarkTimeS: 20 * 60 })
 })
 
-afterAll(async () => {
-  fixtures?.close()
-  await stack?.stop()
-})
-
 async function assign() {
-  return fixtures.assignment(team.teamId, athlete.userId, snapshot)
+  return running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
 }
 
 describe('the session plan', () => {
@@ -137,7 +128,7 @@ describe('logging a session', () => {
     const parallel = await Promise.all(Array.from({ length: 5 }, () => athlete.athlete.post<Entry>(`/api/sessions/${session.id}/entries`, { ...body, idempotencyKey: 'client-idem-1:squat:0:2', set: 2 })))
     expect(new Set(parallel.map(response => response.data.id)).size).toBe(1)
     expect(parallel.filter(response => response.status === 201).length).toBeLessThanOrEqual(1)
-    const rows = await fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
+    const rows = await running.fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
     expect(Number(rows[0]!.n)).toBe(2)
   })
 
@@ -157,7 +148,7 @@ describe('logging a session', () => {
     expect((await post({ stepId: 'warm', set: undefined, seconds: 300 })).status).toBe(400)
     const malformed = await athlete.athlete.request('POST', `/api/sessions/${session.id}/entries`, undefined, { raw: '{"reps":' })
     expect(malformed.status).toBe(400)
-    const rows = await fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
+    const rows = await running.fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
     expect(Number(rows[0]!.n)).toBe(0)
   })
 
@@ -201,13 +192,13 @@ describe('logging a session', () => {
     expect(finished.data.session.load).toBe(180)
     expect(finished.data.session.day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
     expect(finished.data.flags).toMatchObject([{ reason: 'high_pain', pain: 5, area: 'knee' }])
-    const [assignment] = await fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
+    const [assignment] = await running.fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
     expect(assignment!.status).toBe('done')
     // Finishing again changes nothing and raises no second flag.
     const again = await athlete.athlete.post<{ session: Session }>(`/api/sessions/${session.id}/finish`, { sessionRpe: 2 })
     expect(again.status).toBe(200)
     expect(again.data.session.load).toBe(180)
-    const flags = await fixtures.rows('select * from pain_flags where session_id = ?', [session.id])
+    const flags = await running.fixtures.rows('select * from pain_flags where session_id = ?', [session.id])
     expect(flags).toHaveLength(1)
   })
 
@@ -240,10 +231,10 @@ describe('logging a session', () => {
 describe('the routine card link', () => {
   it('finds the athlete\'s next planned session of a routine', async () => {
     const today = new Date().toISOString().slice(0, 10)
-    const routineId = await fixtures.routine(team.teamId, { title: 'Card routine', steps: snapshot.steps })
-    const later = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-10' })
-    const sooner = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-03' })
-    await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: today, status: 'done' })
+    const routineId = await running.fixtures.routine(team.teamId, { title: 'Card routine', steps: snapshot.steps })
+    const later = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-10' })
+    const sooner = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-03' })
+    await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: today, status: 'done' })
     const next = await athlete.athlete.get<{ id: number }>(`/api/me/next-assignment?routineId=${routineId}`)
     expect(next.status).toBe(200)
     expect(next.data.id).toBe(sooner.id)
@@ -287,11 +278,11 @@ describe('the logbook', () => {
     expect((await athlete.athlete.patch(`/api/entries/${entry.id}`, {})).status).toBe(400)
     expect((await teammate.athlete.patch(`/api/entries/${entry.id}`, { reps: 1 })).status).toBe(404)
     expect((await team.coach.patch(`/api/entries/${entry.id}`, { reps: 1 })).status).toBe(403)
-    await fixtures.rows('update session_logs set started_at = ? where id = ?', [Date.now() - 8 * 86_400_000, session.id])
+    await running.fixtures.rows('update session_logs set started_at = ? where id = ?', [Date.now() - 8 * 86_400_000, session.id])
     const late = await athlete.athlete.patch<FieldError>(`/api/entries/${entry.id}`, { reps: 7 })
     expect(late.status).toBe(409)
     expect(late.data.message).toMatch(/7 days/)
-    const [row] = await fixtures.rows<{ reps: number }>('select reps from entry_logs where id = ?', [entry.id])
+    const [row] = await running.fixtures.rows<{ reps: number }>('select reps from entry_logs where id = ?', [entry.id])
     expect(row!.reps).toBe(6)
   })
 })
@@ -354,7 +345,7 @@ describe('the athlete profile', () => {
     expect((await team.coach.get(`/api/athletes/${team.userId}/profile`)).status).toBe(404)
     const note = await team.coach.post<{ id: number }>(`/api/athletes/${athlete.userId}/injury-notes`, { bodyArea: 'hip', note: 'Tight after long runs' })
     expect(note.status).toBe(201)
-    const [row] = await fixtures.rows<{ units: string }>('select units from athlete_profiles where user_id = ?', [athlete.userId])
+    const [row] = await running.fixtures.rows<{ units: string }>('select units from athlete_profiles where user_id = ?', [athlete.userId])
     expect(row!.units).toBe('mi')
   })
 })
