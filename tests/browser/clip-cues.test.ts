@@ -3,8 +3,7 @@ import type { BrowserContext, Locator } from 'playwright-core'
 import { useBrowserStack, useDemoClipFile } from '../support/hooks'
 import { newContext, screenshotPath, signInByRequest } from '../support/browser'
 import { addAthlete, registerCoach } from '../support/team'
-
-interface Cue { id: number, startSeconds: number, endSeconds: number | null, text: string }
+import type { ClipCue } from '../../types/api'
 
 const running = useBrowserStack()
 const demoClip = useDemoClipFile('a-skip-demo.webm', { seconds: 4, framesPerSecond: 12, motion: 'bounce' })
@@ -79,7 +78,7 @@ describe('cues pinned to moments of a clip', () => {
     await page.keyboard.press('ArrowLeft')
     await expect.poll(() => marker.getAttribute('aria-valuenow')).toBe('1.1')
     await page.screenshot({ path: screenshotPath('clip-cues-desktop'), fullPage: true })
-    const saved = await team.coach.get<Cue[]>(`/api/exercises/${exerciseId}/cues`)
+    const saved = await team.coach.get<ClipCue[]>(`/api/exercises/${exerciseId}/cues`)
     expect(saved.data.map(cue => [cue.startSeconds, cue.endSeconds, cue.text])).toEqual([
       [1.1, null, 'Knee drives up here'],
       [2.5, 3.5, 'Heel stays down now'],

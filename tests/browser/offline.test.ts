@@ -7,6 +7,7 @@ import type { ApiClient } from '../support/client'
 import { newContext, screenshotPath, signInByRequest } from '../support/browser'
 import { addAthlete, registerCoach } from '../support/team'
 import { useBrowserStack } from '../support/hooks'
+import type { Logbook } from '../../types/api'
 
 // The athlete side with no network: a real service worker in Chromium, the built server, the
 // object store with a real clip. Everything is fetched ahead online, then the context goes offline.
@@ -15,8 +16,6 @@ const running = useBrowserStack({ env: { NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' 
 let team: Awaited<ReturnType<typeof registerCoach>>
 let snapshot: AssignmentSnapshot
 let today: string
-
-interface LogbookSession { id: number, assignmentId: number, sessionRpe: number | null, finishedAt: string | null, entries: { stepId: string, set: number | null, reps: number | null }[] }
 
 async function uploadClip(coach: ApiClient, exerciseId: number) {
   const body = await makeDemoClip({ seconds: 3, motion: 'climb' })
@@ -180,7 +179,7 @@ describe('the athlete side with no network', () => {
     expect(logs[0]!.session_rpe).toBe(6)
     const entries = await running.fixtures.rows<{ step_id: string, set_number: number | null, reps: number | null }>('select * from entry_logs where session_id = ? order by id', [logs[0]!.id])
     expect(entries.map(entry => entry.step_id)).toEqual(['squat', 'squat', 'step'])
-    const logbook = await athlete.athlete.get<{ sessions: LogbookSession[] }>('/api/me/logbook')
+    const logbook = await athlete.athlete.get<Logbook>('/api/me/logbook')
     const stored = logbook.data.sessions.filter(item => item.assignmentId === session.id)
     expect(stored).toHaveLength(1)
     expect(stored[0]!.entries.map(entry => [entry.stepId, entry.set, entry.reps])).toEqual([['squat', 1, 7], ['squat', 2, 8], ['step', null, null]])

@@ -4,6 +4,7 @@ import { ALL_FORMATS, BufferSource, Input } from 'mediabunny'
 import { useBrowserStack, useDemoClipFile } from '../support/hooks'
 import { fakeCameraArgs, newContext, screenshotPath, signInByRequest } from '../support/browser'
 import { addAthlete, registerCoach } from '../support/team'
+import type { FormReview } from '../../types/api'
 
 // Recording in the page with Chromium's fake camera (a moving test picture, no prompt), the review queue's
 // squad filter in the address, and the count of clips waiting in the coach's navigation.
@@ -18,12 +19,10 @@ async function signedIn(email: string, size: 'phone' | 'desktop') {
   return context
 }
 
-interface Review { id: number, durationSeconds: number | null, clip: { url: string }, reply: { url: string } | null, status: string }
-
 async function reviewOf(context: BrowserContext, url: string) {
   const response = await context.request.get(`${running.stack.url}/api${new URL(url).pathname}`)
   expect(response.status()).toBe(200)
-  return await response.json() as Review
+  return await response.json() as FormReview
 }
 
 describe('recording a clip in the page', () => {

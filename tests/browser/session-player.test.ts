@@ -4,19 +4,12 @@ import type { AssignmentSnapshot } from '../../shared/types/domain'
 import { newContext, screenshotPath, viewports, readStepTimings, watchStepChanges, signInByRequest } from '../support/browser'
 import { addAthlete, registerCoach } from '../support/team'
 import { useBrowserStack } from '../support/hooks'
+import type { Logbook } from '../../types/api'
 
 const running = useBrowserStack({ env: { NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' } })
 let team: Awaited<ReturnType<typeof registerCoach>>
 let athlete: Awaited<ReturnType<typeof addAthlete>>
 let circuit: AssignmentSnapshot
-
-interface LogbookSession {
-  id: number
-  assignmentId: number
-  sessionRpe: number | null
-  finishedAt: string | null
-  entries: { stepId: string, set: number | null, reps: number | null, kg: number | null, seconds: number | null }[]
-}
 
 beforeAll(async () => {
   team = await registerCoach(running.stack)
@@ -58,7 +51,7 @@ async function waitForStep(page: Page, name: string) {
 }
 
 async function logbookFor(assignmentId: number) {
-  const response = await athlete.athlete.get<{ sessions: LogbookSession[] }>('/api/me/logbook')
+  const response = await athlete.athlete.get<Logbook>('/api/me/logbook')
   return response.data.sessions.find(session => session.assignmentId === assignmentId)
 }
 
@@ -247,7 +240,7 @@ describe('the logbook and profile pages', () => {
     await reps.fill('6')
     await session.getByRole('button', { name: 'Save changes' }).click()
     await page.getByText(/Saved 1 change/).waitFor()
-    const { data } = await athlete.athlete.get<{ sessions: LogbookSession[] }>('/api/me/logbook')
+    const { data } = await athlete.athlete.get<Logbook>('/api/me/logbook')
     const edited = data.sessions.flatMap(item => item.entries).filter(entry => entry.stepId === 'squat' && entry.set === 1 && entry.reps === 6)
     expect(edited).toHaveLength(1)
     await context.close()

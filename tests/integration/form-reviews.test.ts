@@ -4,19 +4,7 @@ import { makeDemoClip } from '../../seeds/clip'
 import type { ApiClient, FieldError } from '../support/client'
 import { addAthlete, addCoach, registerCoach } from '../support/team'
 import { useStack } from '../support/hooks'
-
-interface Review {
-  id: number
-  athleteId: number
-  status: 'open' | 'answered'
-  question: string
-  durationSeconds: number | null
-  clip: { url: string }
-  reply: { url: string } | null
-  exercise: { id: number, name: string, cues: string[] } | null
-  comments: { atSeconds: number, text: string, authorName: string | null }[]
-}
-interface Upload { url: string, key: string }
+import type { FormReview, ReviewUploadUrl } from '../../types/api'
 
 const running = useStack({ MEDIA_SWEEP_INTERVAL_MS: '300' })
 let s3: S3Client
@@ -36,7 +24,7 @@ const exists = (key: string) => s3.send(new HeadObjectCommand({ Bucket: running.
 const sql = (statement: string, args: (string | number)[] = []) => running.fixtures.rows(statement, args)
 
 async function put(client: ApiClient, path: string, body: Buffer) {
-  const signed = await client.post<Upload>(path, { contentType: 'video/webm', size: body.byteLength })
+  const signed = await client.post<ReviewUploadUrl>(path, { contentType: 'video/webm', size: body.byteLength })
   expect(signed.status, signed.text).toBe(200)
   expect((await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': 'video/webm' } })).status).toBe(200)
   return signed.data.key
@@ -44,7 +32,7 @@ async function put(client: ApiClient, path: string, body: Buffer) {
 
 async function sendForReview(athlete: ApiClient, question = 'Is my knee drive high enough?') {
   const key = await put(athlete, '/api/reviews/upload-url', clip)
-  const created = await athlete.post<Review>('/api/reviews', { key, question })
+  const created = await athlete.post<FormReview>('/api/reviews', { key, question })
   expect(created.status, created.text).toBe(201)
   return { key, review: created.data }
 }
@@ -64,7 +52,7 @@ describe('form review', () => {
 
     const base = `/api/reviews/${review.id}`
     expect((await coach.post(`${base}/comments`, { atSeconds: 2, text: 'Knee higher here' })).status).toBe(201)
-    const commented = await coach.post<Review>(`${base}/comments`, { atSeconds: 0.5, text: 'Good tall start' })
+    const commented = await coach.post<FormReview>(`${base}/comments`, { atSeconds: 0.5, text: 'Good tall start' })
     expect(commented.data.comments.map(comment => [comment.atSeconds, comment.text])).toEqual([[0.5, 'Good tall start'], [2, 'Knee higher here']])
 
     for (const [body, field, message] of [
@@ -80,18 +68,18 @@ describe('form review', () => {
     expect((await athlete.athlete.post(`${base}/comments`, { atSeconds: 1, text: 'Me' })).status).toBe(403)
 
     const exercise = await coach.post<{ id: number }>('/api/exercises', { name: 'A-skips', category: 'drill', cues: ['Knee drives up'] })
-    const linked = await coach.patch<Review>(base, { exerciseId: exercise.data.id })
+    const linked = await coach.patch<FormReview>(base, { exerciseId: exercise.data.id })
     expect(linked.data.exercise).toMatchObject({ name: 'A-skips', cues: ['Knee drives up'] })
 
     const replyKey = await put(coach, `${base}/reply-url`, clip)
-    const answered = await coach.post<Review>(`${base}/answer`, { replyKey })
+    const answered = await coach.post<FormReview>(`${base}/answer`, { replyKey })
     expect(answered.status, answered.text).toBe(200)
     expect(answered.data.status).toBe('answered')
     expect(answered.data.reply?.url).toBeTruthy()
     const mail = await running.stack.mail.waitFor(athlete.email, /answered your form review/)
     expect(mail.text).toContain(`/reviews/${review.id}`)
 
-    const seen = await athlete.athlete.get<Review>(base)
+    const seen = await athlete.athlete.get<FormReview>(base)
     expect(seen.data.comments.map(comment => comment.text)).toEqual(['Good tall start', 'Knee higher here'])
     expect(seen.data.reply).not.toBeNull()
     expect((await fetch(seen.data.clip.url)).status).toBe(200)

@@ -4,11 +4,10 @@ import { addAthlete, registerCoach } from '../support/team'
 import type { RoutinePreview } from '../../shared/types/routine'
 import type { RoutineStep } from '../../shared/schemas/routine-steps'
 import { useStack } from '../support/hooks'
+import type { RoutineDetail, RoutineList } from '../../types/api'
 
 const running = useStack()
 
-interface Routine { id: number, title: string, category: string, description: string, version: number, steps: RoutineStep[], exercises: { id: number, name: string }[], archivedAt: string | null }
-interface List { items: { id: number, title: string, category: string, totals: { durationS: number, workS: number } }[], total: number }
 interface Conflict extends FieldError { data?: { fields?: Record<string, string>, currentVersion?: number } }
 
 async function insertExercise(teamId: number, name: string, options: { category?: string, cautions?: { text: string, bodyAreas: string[] }[], archived?: boolean } = {}) {
@@ -52,23 +51,23 @@ describe('routines: create, read, list, save', () => {
     expect(created.status).toBe(201)
     expect(created.data.version).toBe(1)
 
-    const read = await coach.get<Routine>(`/api/routines/${created.data.id}`)
+    const read = await coach.get<RoutineDetail>(`/api/routines/${created.data.id}`)
     expect(read.status).toBe(200)
     expect(read.data.steps).toEqual(steps)
     expect(read.data.exercises).toEqual([expect.objectContaining({ id: calf, name: 'Single-leg calf raise' })])
     expect(await usedExercises(created.data.id)).toEqual([calf])
 
-    const list = await coach.get<List>('/api/routines')
+    const list = await coach.get<RoutineList>('/api/routines')
     expect(list.data.items.map(item => item.id)).toContain(created.data.id)
     const item = list.data.items.find(entry => entry.id === created.data.id)!
     // 600 + 8 × 150 + 600, then 3 × 12 reps at 3 s a rep and 2 rests of 60 s
     expect(item.totals.durationS).toBe(2400 + 108 + 120)
     expect(item.totals.workS).toBe(480 + 108)
 
-    expect((await coach.get<List>('/api/routines?q=RIDGE lane')).data.items.map(entry => entry.id)).toEqual([created.data.id])
-    expect((await coach.get<List>('/api/routines?q=nothing-like-this')).data.items).toEqual([])
-    expect((await coach.get<List>('/api/routines?category=strength')).data.items).toEqual([])
-    expect((await coach.get<List>('/api/routines?category=hills')).data.total).toBe(1)
+    expect((await coach.get<RoutineList>('/api/routines?q=RIDGE lane')).data.items.map(entry => entry.id)).toEqual([created.data.id])
+    expect((await coach.get<RoutineList>('/api/routines?q=nothing-like-this')).data.items).toEqual([])
+    expect((await coach.get<RoutineList>('/api/routines?category=strength')).data.items).toEqual([])
+    expect((await coach.get<RoutineList>('/api/routines?category=hills')).data.total).toBe(1)
     expect((await coach.get<FieldError>('/api/routines?category=swimming')).status).toBe(400)
 
     const saved = await coach.put<{ version: number }>(`/api/routines/${created.data.id}`, { title: 'Ridge Lane hills', category: 'hills', description: '', steps: hillSteps(), version: 1 })
@@ -77,7 +76,7 @@ describe('routines: create, read, list, save', () => {
     expect(await usedExercises(created.data.id)).toEqual([])
     const again = await coach.put<{ version: number }>(`/api/routines/${created.data.id}`, { title: 'Ridge Lane hills', category: 'mixed', description: '', steps: hillSteps(), version: 2 })
     expect(again.data.version).toBe(3)
-    expect((await coach.get<Routine>(`/api/routines/${created.data.id}`)).data).toMatchObject({ category: 'mixed', version: 3 })
+    expect((await coach.get<RoutineDetail>(`/api/routines/${created.data.id}`)).data).toMatchObject({ category: 'mixed', version: 3 })
   })
 
   it('refuses a stale save with 409 and keeps the newer version', async () => {
@@ -89,7 +88,7 @@ describe('routines: create, read, list, save', () => {
     expect(stale.status).toBe(409)
     expect(stale.data.data?.currentVersion).toBe(2)
     expect(stale.data.message).toMatch(/saved this routine after you opened it/)
-    const current = await coach.get<Routine>(`/api/routines/${id}`)
+    const current = await coach.get<RoutineDetail>(`/api/routines/${id}`)
     expect(current.data).toMatchObject({ title: 'Edited in tab one', version: 2 })
     const missing = await coach.put<FieldError>(`/api/routines/${id}`, { ...body, version: undefined })
     expect(missing.status).toBe(400)
@@ -106,7 +105,7 @@ describe('routines: create, read, list, save', () => {
     expect(copy.status).toBe(201)
     expect(copy.data).toMatchObject({ version: 1, title: 'Gym circuit (copy)' })
     expect(copy.data.id).not.toBe(original.id)
-    expect((await coach.get<Routine>(`/api/routines/${copy.data.id}`)).data.steps).toEqual(steps)
+    expect((await coach.get<RoutineDetail>(`/api/routines/${copy.data.id}`)).data.steps).toEqual(steps)
     expect(await usedExercises(copy.data.id)).toEqual([squat])
     const named = await coach.post<{ title: string }>(`/api/routines/${original.id}/duplicate`, { title: 'Gym circuit, week 2' })
     expect(named.data.title).toBe('Gym circuit, week 2')
@@ -114,11 +113,11 @@ describe('routines: create, read, list, save', () => {
     const archived = await coach.post<{ archivedAt: string | null }>(`/api/routines/${original.id}/archive`)
     expect(archived.status).toBe(200)
     expect(archived.data.archivedAt).toBeTruthy()
-    expect((await coach.get<List>('/api/routines')).data.items.map(item => item.id)).not.toContain(original.id)
-    expect((await coach.get<List>('/api/routines?archived=true')).data.items.map(item => item.id)).toEqual([original.id])
-    expect((await coach.get<Routine>(`/api/routines/${original.id}`)).status).toBe(200)
+    expect((await coach.get<RoutineList>('/api/routines')).data.items.map(item => item.id)).not.toContain(original.id)
+    expect((await coach.get<RoutineList>('/api/routines?archived=true')).data.items.map(item => item.id)).toEqual([original.id])
+    expect((await coach.get<RoutineDetail>(`/api/routines/${original.id}`)).status).toBe(200)
     await coach.post(`/api/routines/${original.id}/archive`, { archived: false })
-    expect((await coach.get<List>('/api/routines')).data.items.map(item => item.id)).toContain(original.id)
+    expect((await coach.get<RoutineList>('/api/routines')).data.items.map(item => item.id)).toContain(original.id)
   })
 })
 
@@ -186,7 +185,7 @@ describe('routines: bad input', () => {
     const failed = await mine.coach.put<FieldError>(`/api/routines/${routine.id}`, { title: 'Keeps it', category: 'strength', description: '', steps: [step('a', foreign)], version: 2 })
     expect(failed.status).toBe(400)
     expect(await usedExercises(routine.id)).toEqual([own, kept].sort((x, y) => x - y))
-    expect((await mine.coach.get<Routine>(`/api/routines/${routine.id}`)).data.version).toBe(2)
+    expect((await mine.coach.get<RoutineDetail>(`/api/routines/${routine.id}`)).data.version).toBe(2)
   })
 })
 
@@ -203,7 +202,7 @@ describe('routines: who may do what', () => {
     expect((await other.coach.post(`/api/routines/${id}/duplicate`)).status).toBe(404)
     expect((await other.coach.post(`/api/routines/${id}/archive`)).status).toBe(404)
     expect((await other.coach.get(`/api/routines/${id}/preview?athleteId=1`)).status).toBe(404)
-    expect((await other.coach.get<List>('/api/routines')).data.items).toEqual([])
+    expect((await other.coach.get<RoutineList>('/api/routines')).data.items).toEqual([])
     expect((await other.coach.get(`/api/routines/${id + 100_000}`)).status).toBe(404)
 
     expect((await athlete.get('/api/routines')).status).toBe(403)
@@ -214,7 +213,7 @@ describe('routines: who may do what', () => {
     const stranger = new ApiClient(running.stack.url)
     expect((await stranger.get('/api/routines')).status).toBe(401)
     expect((await stranger.post('/api/routines', { title: 'x', category: 'hills', steps: [] })).status).toBe(401)
-    expect((await owner.coach.get<Routine>(`/api/routines/${id}`)).data.title).toBe('Private hills')
+    expect((await owner.coach.get<RoutineDetail>(`/api/routines/${id}`)).data.title).toBe('Private hills')
   })
 })
 

@@ -3,6 +3,8 @@ import type { AssignmentSnapshot } from '../../shared/types/domain'
 import type { ApiClient, FieldError } from '../support/client'
 import { addAthlete, addCoach, registerCoach } from '../support/team'
 import { useStack } from '../support/hooks'
+import type { RoutinePreview } from '../../shared/types/routine'
+import type { FinishedSession } from '../../types/api'
 
 const running = useStack()
 let team: Awaited<ReturnType<typeof registerCoach>>
@@ -11,18 +13,11 @@ let athlete: Awaited<ReturnType<typeof addAthlete>>
 let otherTeam: Awaited<ReturnType<typeof registerCoach>>
 let snapshot: AssignmentSnapshot
 
-interface FinishAnswer {
-  flags: { id: number, reason: string, pain: number, area: string | null, sudden: boolean }[]
-  urgent: boolean
-  guidance: { title: string, call: string, redFlags: string[], steps: string[] } | null
-}
-interface Preview { cautions: { source: string, exerciseName: string, text: string, matchedAreas: string[] }[] }
-
 /** Runs one session of the snapshot for the athlete and finishes it with the given report. */
 async function finishWith(report: Record<string, unknown>) {
   const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
   const started = await athlete.athlete.post<{ id: number }>(`/api/assignments/${id}/sessions`, { clientId: `client-${Math.random().toString(36).slice(2, 12)}` })
-  return athlete.athlete.post<FinishAnswer>(`/api/sessions/${started.data.id}/finish`, { sessionRpe: 6, ...report })
+  return athlete.athlete.post<FinishedSession>(`/api/sessions/${started.data.id}/finish`, { sessionRpe: 6, ...report })
 }
 
 async function outboxTo(address: string) {
@@ -122,10 +117,10 @@ describe('cautions that follow the body', () => {
         { id: 'down', type: 'block', kind: 'recovery', measure: { by: 'time', seconds: 90 } },
       ] },
     ] })
-    const before = await team.coach.get<Preview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
+    const before = await team.coach.get<RoutinePreview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
     expect(before.data.cautions.find(caution => caution.exerciseName === 'Uphill efforts')!.matchedAreas).toEqual([])
     await running.fixtures.injuryNote(team.teamId, athlete.userId, 'achilles', 'Stiff in the mornings')
-    const preview = await team.coach.get<Preview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
+    const preview = await team.coach.get<RoutinePreview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
     expect(preview.status).toBe(200)
     expect(preview.data.cautions[0]).toMatchObject({ source: 'step', exerciseName: 'Uphill efforts', matchedAreas: ['achilles'] })
     expect(preview.data.cautions[0]!.text).toMatch(/Achilles/)
