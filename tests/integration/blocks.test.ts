@@ -2,7 +2,7 @@ import ICAL from 'ical.js'
 import { describe, expect, it } from 'vitest'
 import { ApiClient, type FieldError } from '../support/client'
 import { countRows, hillSteps, insertExercise, insertRoutine, outboxSettled } from '../support/planner'
-import { addAthlete, registerCoach } from '../support/team'
+import { addSquad, registerCoach } from '../support/team'
 import { addDays } from '../../shared/utils/dates'
 import { useStack } from '../support/hooks'
 
@@ -21,16 +21,12 @@ function gymSteps(exerciseId: number) {
 
 async function blockTeam(athleteCount = 2) {
   const team = await registerCoach(running.stack, 'Larchford Ridge Runners')
-  const squad = await team.coach.post<{ id: number }>('/api/squads', { name: 'Road group' })
-  const athletes = []
-  for (let index = 0; index < athleteCount; index++) {
-    athletes.push(await addAthlete(running.stack, team.coach, { squadId: squad.data.id, name: `Road Runner ${index + 1}` }))
-  }
+  const { squadId, athletes } = await addSquad(running.stack, team.coach, { name: 'Road group', count: athleteCount, athleteName: 'Road Runner' })
   const hillId = await insertExercise(running.db, team.teamId, { name: 'Uphill drive' })
   const squatId = await insertExercise(running.db, team.teamId, { name: 'Goblet squat', category: 'strength' })
   const hills = await insertRoutine(running.db, team.teamId, { title: 'Ridge road hill reps', steps: hillSteps(hillId, 6) })
   const gym = await insertRoutine(running.db, team.teamId, { title: 'Club gym squats', category: 'strength', steps: gymSteps(squatId) })
-  return { ...team, squadId: squad.data.id, athletes, hills, gym }
+  return { ...team, squadId, athletes, hills, gym }
 }
 
 function hillBlock(team: Awaited<ReturnType<typeof blockTeam>>, overrides: Record<string, unknown> = {}) {

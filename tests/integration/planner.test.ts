@@ -2,7 +2,7 @@ import ICAL from 'ical.js'
 import { describe, expect, it } from 'vitest'
 import { ApiClient, type FieldError } from '../support/client'
 import { countRows, hillSteps, insertExercise, insertRoutine, outboxSettled } from '../support/planner'
-import { addAthlete, registerCoach } from '../support/team'
+import { addAthlete, addSquad, registerCoach } from '../support/team'
 import { useStack } from '../support/hooks'
 import type { AssignmentsCreated, MyAssignments, PlannedAssignments } from '../../types/api'
 
@@ -10,14 +10,10 @@ const running = useStack()
 
 async function squadTeam(athleteCount = 2) {
   const team = await registerCoach(running.stack, 'Larchford Ridge Runners')
-  const squad = await team.coach.post<{ id: number }>('/api/squads', { name: 'Ridge group' })
-  const athletes = []
-  for (let index = 0; index < athleteCount; index++) {
-    athletes.push(await addAthlete(running.stack, team.coach, { squadId: squad.data.id, name: `Ridge Runner ${index + 1}` }))
-  }
+  const { squadId, athletes } = await addSquad(running.stack, team.coach, { name: 'Ridge group', count: athleteCount, athleteName: 'Ridge Runner' })
   const exerciseId = await insertExercise(running.db, team.teamId, { name: 'Uphill drive', cautions: [{ text: 'Ease off if the Achilles tightens', bodyAreas: ['achilles'] }] })
   const routineId = await insertRoutine(running.db, team.teamId, { title: 'Ridge road hill reps', steps: hillSteps(exerciseId) })
-  return { ...team, squadId: squad.data.id, athletes, exerciseId, routineId }
+  return { ...team, squadId, athletes, exerciseId, routineId }
 }
 
 async function snapshotOf(id: number) {
