@@ -7,6 +7,7 @@ import { join } from 'node:path'
 import { gzipSync } from 'node:zlib'
 import autocannon from 'autocannon'
 import { createClient } from '@libsql/client'
+import type { Page } from 'playwright-core'
 import { ApiClient } from '../tests/support/client'
 import { launchBrowser, newContext, readStepTimings, watchStepChanges } from '../tests/support/browser'
 import { logEverything, seedLoggingAthletes } from '../tests/support/logging-athletes'
@@ -49,14 +50,23 @@ async function signIn(url: string, email: string) {
   return { client, cookie }
 }
 
-/** The session player opened cold: every script it loads, and their size gzipped as the build ships them. */
-async function playerScripts(url: string, cookie: string, path: string) {
+/** A fresh Chromium with one phone-sized page carrying the signed-in `cookie`; closed again after `use`. */
+async function withPhonePage<T>(url: string, cookie: string, use: (page: Page) => Promise<T>): Promise<T> {
   const browser = await launchBrowser()
   try {
     const context = await newContext(browser, 'phone')
     const [name, value] = cookie.split(';')[0]!.split('=')
     await context.addCookies([{ name: name!, value: value!, url }])
-    const page = await context.newPage()
+    return await use(await context.newPage())
+  }
+  finally {
+    await browser.close()
+  }
+}
+
+/** The session player opened cold: every script it loads, and their size gzipped as the build ships them. */
+async function playerScripts(url: string, cookie: string, path: string) {
+  return withPhonePage(url, cookie, async (page) => {
     const scripts = new Set<string>()
     page.on('request', (request) => {
       if (request.resourceType() === 'script') scripts.add(new URL(request.url()).pathname)
@@ -75,10 +85,7 @@ async function playerScripts(url: string, cookie: string, path: string) {
       sizes.push({ script, gzippedKb: size / 1024 })
     }
     return { count: scripts.size, gzippedKb: gzipped / 1024, rawKb: raw / 1024, largest: sizes.sort((a, b) => b.gzippedKb - a.gzippedKb).slice(0, 6) }
-  }
-  finally {
-    await browser.close()
-  }
+  })
 }
 
 /**
@@ -95,12 +102,7 @@ async function timerFigures(url: string, databaseUrl: string, cookie: string, em
   const today = new Date().toISOString().slice(0, 10)
   const assignment = await db.execute({ sql: 'INSERT INTO assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date, status) VALUES (?, ?, ?, 1, ?, ?, ?) RETURNING id', args: [who.teamId, who.userId, routine.id, JSON.stringify(snapshot), today, 'planned'] })
   db.close()
-  const browser = await launchBrowser()
-  try {
-    const context = await newContext(browser, 'phone')
-    const [name, value] = cookie.split(';')[0]!.split('=')
-    await context.addCookies([{ name: name!, value: value!, url }])
-    const page = await context.newPage()
+  return withPhonePage(url, cookie, async (page) => {
     await page.goto(`${url}/session/${Number(assignment.rows[0]!.id)}`)
     await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
     await watchStepChanges(page)
@@ -113,10 +115,7 @@ async function timerFigures(url: string, databaseUrl: string, cookie: string, em
     const inDom = result.seen.filter(item => item.index > 0).map(item => item.at - (start + durations.slice(0, item.index).reduce((sum, seconds) => sum + seconds * 1000, 0)))
     const stats = (values: number[]) => ({ max: Math.max(...values), mean: values.reduce((sum, item) => sum + item, 0) / values.length })
     return { changes: rendered.length, rendered: stats(rendered), inDom: stats(inDom) }
-  }
-  finally {
-    await browser.close()
-  }
+  })
 }
 
 async function lighthouseScores(url: string, cookie: string, paths: string[]) {

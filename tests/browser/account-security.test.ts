@@ -1,34 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { launchBrowser, newContext, signInThroughPage } from '../support/browser'
+import { describe, expect, it } from 'vitest'
+import { newContext, signInThroughPage } from '../support/browser'
 import { ApiClient } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { PASSWORD, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-})
+const running = useBrowserStack()
 
 describe('password and sign-in on the team page', () => {
   it('changes the password, signing out another device, then signs out everywhere', async () => {
     // Registering signs in one client, and another device signs in too: two other sessions.
-    const { email } = await registerCoach(stack)
-    const otherDevice = new ApiClient(stack.url)
+    const { email } = await registerCoach(running.stack)
+    const otherDevice = new ApiClient(running.stack.url)
     expect((await otherDevice.post('/api/auth/login', { email, password: PASSWORD })).status).toBe(200)
 
-    const context = await newContext(browser, 'phone')
-    const page = await signInThroughPage(context, stack.url, email)
+    const context = await newContext(running.browser, 'phone')
+    const page = await signInThroughPage(context, running.stack.url, email)
     await page.waitForURL(/\/(coach|team)/)
-    await page.goto(`${stack.url}/team`)
+    await page.goto(`${running.stack.url}/team`)
     // Wait for the page to come alive, so the form is sent by the app and not by the browser.
     await page.waitForLoadState('networkidle')
     await page.getByLabel('Current password').fill('not-my-password')
@@ -47,7 +35,7 @@ describe('password and sign-in on the team page', () => {
 
     await page.getByRole('button', { name: 'Sign out on all devices' }).click()
     await page.waitForURL(/\/login/)
-    await page.goto(`${stack.url}/team`)
+    await page.goto(`${running.stack.url}/team`)
     await page.waitForURL(/\/login/)
     await context.close()
   })

@@ -1,42 +1,29 @@
-import type { Browser } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { addDays, todayIn, weekdayNames, weekdayOf } from '../../shared/utils/dates'
-import { launchBrowser, newContext, signInThroughPage, screenshotPath } from '../support/browser'
-import { hillSteps, insertRoutine, openTestDb } from '../support/planner'
-import { startStack, type Stack } from '../support/stack'
+import { newContext, signInThroughPage, screenshotPath } from '../support/browser'
+import { hillSteps, insertRoutine } from '../support/planner'
 import { addAthlete, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-})
+const running = useBrowserStack()
 
 async function signIn(context: Awaited<ReturnType<typeof newContext>>, email: string) {
-  return signInThroughPage(context, stack.url, email)
+  return signInThroughPage(context, running.stack.url, email)
 }
 
 describe('training blocks in Chromium', () => {
   it('a coach builds an 8-week hill block from 6 to 10 reps, previews and plans it; the athlete sees week 2 with 7 reps', async () => {
-    const team = await registerCoach(stack)
-    const { email: athleteEmail } = await addAthlete(stack, team.coach, { name: 'Tamsin Rook' })
-    const db = openTestDb(stack)
+    const team = await registerCoach(running.stack)
+    const { email: athleteEmail } = await addAthlete(running.stack, team.coach, { name: 'Tamsin Rook' })
+    const db = running.db
     await insertRoutine(db, team.teamId, { title: 'Ridge road hill reps', category: 'hills', steps: hillSteps(undefined, 6) })
-    db.close()
 
     // The block started 7 days ago on today's weekday, so today's session is week 2's.
     const today = todayIn('UTC')
     const start = addDays(today, -7)
-    const coachContext = await newContext(browser, 'desktop')
+    const coachContext = await newContext(running.browser, 'desktop')
     const page = await signIn(coachContext, team.email)
-    await page.goto(`${stack.url}/blocks`)
+    await page.goto(`${running.stack.url}/blocks`)
     await page.getByRole('link', { name: 'New block' }).click()
     await page.getByRole('heading', { name: 'New training block' }).waitFor()
 
@@ -89,16 +76,16 @@ describe('training blocks in Chromium', () => {
     await page.getByRole('status').filter({ hasText: 'Week 3 set by hand; 2 planned sessions updated.' }).waitFor()
     await expect.poll(() => page.getByTestId('block-week-3').innerText()).toMatch(/9 rounds[\s\S]*set by hand/)
 
-    const phoneCoach = await newContext(browser, 'phone')
+    const phoneCoach = await newContext(running.browser, 'phone')
     const phonePage = await signIn(phoneCoach, team.email)
     await phonePage.goto(page.url())
     await phonePage.getByTestId('block-preview').waitFor()
     await phonePage.screenshot({ path: screenshotPath('block-phone'), fullPage: true })
 
     // The athlete: today's session is week 2 of 8, one round more than last week.
-    const athleteContext = await newContext(browser, 'phone')
+    const athleteContext = await newContext(running.browser, 'phone')
     const athletePage = await signIn(athleteContext, athleteEmail)
-    await athletePage.goto(`${stack.url}/today`)
+    await athletePage.goto(`${running.stack.url}/today`)
     const todays = athletePage.locator('section[aria-labelledby="today-heading"]')
     await todays.getByText('Week 2 of 8').waitFor()
     expect(await todays.getByTestId('block-week').innerText()).toContain('+1 round from last week')

@@ -1,41 +1,15 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, BrowserContext, Locator } from 'playwright-core'
-import { makeDemoClip } from '../../seeds/clip'
-import { launchBrowser, newContext, screenshotPath } from '../support/browser'
-import { Fixtures } from '../support/fixtures'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { describe, expect, it } from 'vitest'
+import type { BrowserContext, Locator } from 'playwright-core'
+import { useBrowserStack, useDemoClipFile } from '../support/hooks'
+import { newContext, screenshotPath, signInByRequest } from '../support/browser'
+import { addAthlete, registerCoach } from '../support/team'
+import type { ClipCue } from '../../types/api'
 
-interface Cue { id: number, startSeconds: number, endSeconds: number | null, text: string }
+const running = useBrowserStack()
+const demoClip = useDemoClipFile('a-skip-demo.webm', { seconds: 4, framesPerSecond: 12, motion: 'bounce' })
 
-let stack: Stack
-let browser: Browser
-let fixtures: Fixtures
-let folder: string
-let clipFile: string
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-  fixtures = new Fixtures(stack)
-  folder = mkdtempSync(join(tmpdir(), 'switchback-cues-'))
-  clipFile = join(folder, 'a-skip-demo.webm')
-  writeFileSync(clipFile, await makeDemoClip({ seconds: 4, framesPerSecond: 12, motion: 'bounce' }))
-})
-
-afterAll(async () => {
-  fixtures?.close()
-  await browser?.close()
-  await stack?.stop()
-  if (folder) rmSync(folder, { recursive: true, force: true })
-})
-
-async function signIn(context: BrowserContext, email: string) {
-  const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email, password: PASSWORD } })
-  expect(response.status()).toBe(200)
+function signIn(context: BrowserContext, email: string) {
+  return signInByRequest(context, running.stack.url, email)
 }
 
 /** Seeks the video and waits until it has got there. */
@@ -54,7 +28,7 @@ function seek(video: Locator, seconds: number) {
 
 describe('cues pinned to moments of a clip', () => {
   it('a coach uploads a clip and pins two cues; the athlete sees each caption at its moment in the player', async () => {
-    const team = await registerCoach(stack)
+    const team = await registerCoach(running.stack)
     const created = await team.coach.post<{ id: number }>('/api/exercises', {
       name: 'A-skips',
       category: 'strength',
@@ -63,12 +37,12 @@ describe('cues pinned to moments of a clip', () => {
     expect(created.status).toBe(201)
     const exerciseId = created.data.id
 
-    const coachContext = await newContext(browser, 'desktop')
+    const coachContext = await newContext(running.browser, 'desktop')
     await signIn(coachContext, team.email)
     const page = await coachContext.newPage()
-    await page.goto(`${stack.url}/exercises/${exerciseId}`)
+    await page.goto(`${running.stack.url}/exercises/${exerciseId}`)
     await page.getByRole('heading', { name: 'A-skips' }).first().waitFor()
-    await page.getByTestId('clip-file').setInputFiles(clipFile)
+    await page.getByTestId('clip-file').setInputFiles(demoClip.path)
     await page.getByText(/Clip uploaded and checked/).waitFor({ timeout: 30_000 })
     // A poster frame is taken from the clip in the browser and stored beside it.
     await page.getByText('A poster frame from the clip was saved.').waitFor({ timeout: 30_000 })
@@ -104,7 +78,7 @@ describe('cues pinned to moments of a clip', () => {
     await page.keyboard.press('ArrowLeft')
     await expect.poll(() => marker.getAttribute('aria-valuenow')).toBe('1.1')
     await page.screenshot({ path: screenshotPath('clip-cues-desktop'), fullPage: true })
-    const saved = await team.coach.get<Cue[]>(`/api/exercises/${exerciseId}/cues`)
+    const saved = await team.coach.get<ClipCue[]>(`/api/exercises/${exerciseId}/cues`)
     expect(saved.data.map(cue => [cue.startSeconds, cue.endSeconds, cue.text])).toEqual([
       [1.1, null, 'Knee drives up here'],
       [2.5, 3.5, 'Heel stays down now'],
@@ -112,19 +86,19 @@ describe('cues pinned to moments of a clip', () => {
     await coachContext.close()
 
     // The athlete, in the session player's clip panel.
-    const athlete = await addAthlete(stack, team.coach, { name: 'Ffion Aske' })
+    const athlete = await addAthlete(running.stack, team.coach, { name: 'Ffion Aske' })
     const exercise = { id: exerciseId, name: 'A-skips', category: 'strength' as const, summary: '', cues: ['Knee drives up here', 'Heel stays down now'], equipment: [], cautions: [] }
-    const { id: assignmentId } = await fixtures.assignment(team.teamId, athlete.userId, {
+    const { id: assignmentId } = await running.fixtures.assignment(team.teamId, athlete.userId, {
       title: 'Thursday drills',
       category: 'strength',
       description: '',
       exercises: [exercise],
       steps: [{ id: 'skips', type: 'block', kind: 'work', exerciseId, measure: { by: 'time', seconds: 600 } }],
     })
-    const athleteContext = await newContext(browser, 'phone')
+    const athleteContext = await newContext(running.browser, 'phone')
     await signIn(athleteContext, athlete.email)
     const player = await athleteContext.newPage()
-    await player.goto(`${stack.url}/session/${assignmentId}`)
+    await player.goto(`${running.stack.url}/session/${assignmentId}`)
     await player.getByRole('checkbox', { name: /I have read the cautions/ }).check()
     await player.getByRole('button', { name: 'Start session' }).click()
     await player.getByRole('button', { name: 'Cues and demo clip' }).click()

@@ -1,56 +1,41 @@
-import type { Browser, BrowserContext } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { BrowserContext } from 'playwright-core'
+import { describe, expect, it } from 'vitest'
 import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
-import { launchBrowser, newContext, signInThroughPage, screenshotPath, viewports, waitForAuthForm } from '../support/browser'
+import { newContext, signInThroughPage, screenshotPath, viewports, waitForAuthForm, fillRegisterForm } from '../support/browser'
 import { ApiClient, uniqueEmail } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
-import { hillSteps, insertRoutine, openTestDb } from '../support/planner'
-import { startStack, type Stack } from '../support/stack'
+import { hillSteps, insertRoutine } from '../support/planner'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-})
+const running = useBrowserStack()
 
 async function signIn(context: BrowserContext, email: string) {
-  return signInThroughPage(context, stack.url, email)
+  return signInThroughPage(context, running.stack.url, email)
 }
 
 describe('a new club in Chromium', () => {
   it('the front page offers to start a club; the club starts with the starter set, invites an athlete who answers the first-visit questions and sees a session', async () => {
-    const coachContext = await newContext(browser, 'desktop')
+    const coachContext = await newContext(running.browser, 'desktop')
     const coach = await coachContext.newPage()
-    await coach.goto(stack.url)
+    await coach.goto(running.stack.url)
     await coach.getByRole('heading', { name: 'The work around the running, planned and done.' }).waitFor()
     expect(await coach.locator('img').count()).toBe(0)
     await coach.getByRole('link', { name: 'Start a club' }).first().click()
     await coach.waitForURL(/\/register$/)
-    await waitForAuthForm(coach)
-    await coach.getByLabel('Your name').fill('Morwen Tay')
-    await coach.getByLabel('E-mail').fill(uniqueEmail('club'))
-    await coach.getByLabel('Password').fill('a-good-long-password')
-    await coach.getByLabel('Team or club name').fill('Larchford Ridge Runners')
+    await fillRegisterForm(coach, { name: 'Morwen Tay', password: 'a-good-long-password', teamName: 'Larchford Ridge Runners', email: uniqueEmail('club') })
     expect(await coach.getByLabel('Empty').isChecked()).toBe(true)
     await coach.getByLabel('With the starter set').check()
     await coach.getByRole('button', { name: 'Create team' }).click()
     await coach.waitForURL(/\/team$/)
 
-    await coach.goto(`${stack.url}/exercises?q=calf`)
+    await coach.goto(`${running.stack.url}/exercises?q=calf`)
     await coach.getByRole('link', { name: 'Single-leg calf raise' }).first().waitFor()
     await coach.getByText('Starter set', { exact: true }).click()
     await coach.getByRole('button', { name: 'Add the starter set' }).click()
     await coach.getByText('Your team already has the whole starter set.').waitFor()
 
-    await coach.goto(`${stack.url}/team`)
+    await coach.goto(`${running.stack.url}/team`)
     const athleteEmail = uniqueEmail('athlete')
     await coach.getByLabel('Their e-mail').fill(athleteEmail)
     await coach.getByLabel('Joins as').selectOption('athlete')
@@ -58,12 +43,12 @@ describe('a new club in Chromium', () => {
     await coach.getByText(`Invitation sent to ${athleteEmail}`).waitFor()
 
     // The coach's home lists the invitation and the checklist's progress.
-    await coach.goto(`${stack.url}/coach`)
+    await coach.goto(`${running.stack.url}/coach`)
     await coach.getByRole('heading', { name: /Getting the club started \(3 of 6\)/ }).waitFor()
     await coach.getByRole('link', { name: athleteEmail }).waitFor()
 
-    const mail = await stack.mail.waitFor(athleteEmail, /invited you/)
-    const athleteContext = await newContext(browser, 'phone')
+    const mail = await running.stack.mail.waitFor(athleteEmail, /invited you/)
+    const athleteContext = await newContext(running.browser, 'phone')
     const athlete = await athleteContext.newPage()
     await athlete.goto(linkIn(mail, /http:\/\/127\.0\.0\.1:\d+\/join\/[\w-]+/))
     await waitForAuthForm(athlete)
@@ -73,10 +58,10 @@ describe('a new club in Chromium', () => {
     await athlete.waitForURL(/\/today$/)
 
     // The coach plans a starter routine for today through the planner's route.
-    const athletes = await coach.request.get(`${stack.url}/api/planner/options`)
+    const athletes = await coach.request.get(`${running.stack.url}/api/planner/options`)
     const options = await athletes.json() as { routines: { id: number, title: string }[], athletes: { id: number }[] }
     const routine = options.routines.find(item => item.title.startsWith('Short hills'))!
-    const planned = await coach.request.post(`${stack.url}/api/assignments`, { data: { routineId: routine.id, athleteIds: [options.athletes[0]!.id], dates: [todayIn('UTC')] } })
+    const planned = await coach.request.post(`${running.stack.url}/api/assignments`, { data: { routineId: routine.id, athleteIds: [options.athletes[0]!.id], dates: [todayIn('UTC')] } })
     expect(planned.status()).toBe(201)
 
     await athlete.reload()
@@ -91,7 +76,7 @@ describe('a new club in Chromium', () => {
     await athlete.getByRole('heading', { name: 'Before your first session' }).waitFor({ state: 'detached' })
     await athlete.getByText(routine.title).first().waitFor()
 
-    const profile = await athlete.request.get(`${stack.url}/api/me/profile`)
+    const profile = await athlete.request.get(`${running.stack.url}/api/me/profile`)
     const saved = await profile.json() as { profile: { benchmarkDistanceM: number, benchmarkTimeS: number, units: string }, injuryNotes: { bodyArea: string }[] }
     expect(saved.profile).toMatchObject({ benchmarkDistanceM: 5000, benchmarkTimeS: 1470, units: 'mi' })
     expect(saved.injuryNotes.map(note => note.bodyArea)).toEqual(['knee'])
@@ -100,19 +85,18 @@ describe('a new club in Chromium', () => {
   })
 
   it('the coach\'s home lists a new pain flag, newest first, and takes a reply', async () => {
-    const team = await registerCoach(stack, 'Pain Flag Harriers')
-    const { userId } = await addAthlete(stack, team.coach, { name: 'Wren Calder' })
-    const db = openTestDb(stack)
+    const team = await registerCoach(running.stack, 'Pain Flag Harriers')
+    const { userId } = await addAthlete(running.stack, team.coach, { name: 'Wren Calder' })
+    const db = running.db
     const routineId = await insertRoutine(db, team.teamId, { title: 'Downhill strides' })
     const today = todayIn('UTC')
     const assignment = await db.execute({ sql: 'insert into assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date, status) values (?, ?, ?, 1, ?, ?, \'done\') returning id', args: [team.teamId, userId, routineId, JSON.stringify({ title: 'Downhill strides', category: 'hills', description: '', steps: hillSteps(), exercises: [] }), today] })
     const session = await db.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, finished_at, day, duration_s, session_rpe, load, pain, pain_area) values (?, ?, ?, ?, ?, ?, ?, 1800, 6, 180, 7, \'shin\') returning id', args: [team.teamId, Number(assignment.rows[0]!.id), userId, 'browser-pain', Date.now() - 3_600_000, Date.now(), today] })
     await db.execute({ sql: 'insert into pain_flags (team_id, athlete_id, session_id, pain, area, reason) values (?, ?, ?, 7, \'shin\', \'high_pain\')', args: [team.teamId, userId, Number(session.rows[0]!.id)] })
-    db.close()
 
-    const context = await newContext(browser, 'phone')
+    const context = await newContext(running.browser, 'phone')
     const page = await signIn(context, team.email)
-    await page.goto(`${stack.url}/coach`)
+    await page.goto(`${running.stack.url}/coach`)
     await page.getByRole('heading', { name: 'Open pain flags (1)' }).waitFor()
     const flag = page.getByRole('article', { name: /Pain flag: Wren Calder, Shin/ })
     await flag.waitFor()
@@ -128,21 +112,21 @@ describe('a new club in Chromium', () => {
 
 describe('a coach of two teams in Chromium', () => {
   it('switches team from the header, sees only the chosen team\'s athletes, and keeps the choice across a reload', async () => {
-    const north = await registerCoach(stack, 'North Ridge Runners')
-    const south = await registerCoach(stack, 'South Ridge Runners')
-    const cai = await addAthlete(stack, north.coach, { name: 'Cai Penhallow' })
-    const juno = await addAthlete(stack, south.coach, { name: 'Juno Halloway' })
+    const north = await registerCoach(running.stack, 'North Ridge Runners')
+    const south = await registerCoach(running.stack, 'South Ridge Runners')
+    const cai = await addAthlete(running.stack, north.coach, { name: 'Cai Penhallow' })
+    const juno = await addAthlete(running.stack, south.coach, { name: 'Juno Halloway' })
     // One coach joins both teams from the e-mailed invitations, with one account.
     const email = uniqueEmail('twoteams')
     for (const [index, team] of [north, south].entries()) {
       expect((await team.coach.post('/api/invites', { email, role: 'coach' })).status).toBe(201)
-      const mail = await stack.mail.waitFor(email, index === 0 ? /North Ridge/ : /South Ridge/)
+      const mail = await running.stack.mail.waitFor(email, index === 0 ? /North Ridge/ : /South Ridge/)
       const token = linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!
-      const accepted = await new ApiClient(stack.url).post(`/api/invites/${token}/accept`, { name: 'Idris Fenn', password: PASSWORD })
+      const accepted = await new ApiClient(running.stack.url).post(`/api/invites/${token}/accept`, { name: 'Idris Fenn', password: PASSWORD })
       expect(accepted.status).toBe(201)
     }
     // An open pain flag in each team, so each coach's home shows its own athlete.
-    const db = openTestDb(stack)
+    const db = running.db
     const today = todayIn('UTC')
     for (const [team, athleteId, title] of [[north, cai.userId, 'Ridge hill reps'], [south, juno.userId, 'Valley strides']] as const) {
       const routineId = await insertRoutine(db, team.teamId, { title })
@@ -150,11 +134,10 @@ describe('a coach of two teams in Chromium', () => {
       const session = await db.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, finished_at, day, duration_s, session_rpe, load, pain, pain_area) values (?, ?, ?, ?, ?, ?, ?, 1800, 6, 180, 6, \'knee\') returning id', args: [team.teamId, Number(assignment.rows[0]!.id), athleteId, `switch-${athleteId}`, Date.now() - 3_600_000, Date.now(), today] })
       await db.execute({ sql: 'insert into pain_flags (team_id, athlete_id, session_id, pain, area, reason) values (?, ?, ?, 6, \'knee\', \'high_pain\')', args: [team.teamId, athleteId, Number(session.rows[0]!.id)] })
     }
-    db.close()
 
-    const context = await newContext(browser, 'desktop')
+    const context = await newContext(running.browser, 'desktop')
     const page = await signIn(context, email)
-    await page.goto(`${stack.url}/coach`)
+    await page.goto(`${running.stack.url}/coach`)
     // Signing in picks the newest membership: the south team.
     await page.getByRole('heading', { level: 1, name: 'South Ridge Runners' }).waitFor()
     await page.getByRole('article', { name: /Pain flag: Juno Halloway/ }).waitFor()
@@ -172,7 +155,7 @@ describe('a coach of two teams in Chromium', () => {
     await page.reload()
     await page.getByRole('heading', { level: 1, name: 'North Ridge Runners' }).waitFor()
     expect(await page.getByRole('combobox', { name: 'Team', exact: true }).inputValue()).toBe(String(north.teamId))
-    await page.goto(`${stack.url}/insights`)
+    await page.goto(`${running.stack.url}/insights`)
     await page.getByText('Cai Penhallow').first().waitFor()
     expect(await page.getByText('Juno Halloway').count()).toBe(0)
 
@@ -188,8 +171,8 @@ describe('a coach of two teams in Chromium', () => {
 
 describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('the planner grid with 80 athletes at %s width', (size) => {
   it('shows the squads, renders only the rows in view, and moves a session', async () => {
-    const team = await registerCoach(stack, `Big Squad Club ${size}`)
-    const db = openTestDb(stack)
+    const team = await registerCoach(running.stack, `Big Squad Club ${size}`)
+    const db = running.db
     const monday = startOfWeek(todayIn('UTC'))
     // 80 athletes in two squads, written straight into the test database (the subject is the grid, not invitations).
     const squadIds: number[] = []
@@ -211,9 +194,9 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('the planner
     ]), 'write')
     const [first] = (await db.execute({ sql: 'select id, date from assignments where athlete_id = ?', args: [athleteIds[0]!] })).rows as unknown as { id: number, date: string }[]
 
-    const context = await newContext(browser, size)
+    const context = await newContext(running.browser, size)
     const page = await signIn(context, team.email)
-    await page.goto(`${stack.url}/planner?view=grid&date=${monday}`)
+    await page.goto(`${running.stack.url}/planner?view=grid&date=${monday}`)
     const grid = page.locator('[data-planner-grid]')
     await grid.waitFor()
     await page.getByText('80 athletes shown').waitFor()
@@ -245,7 +228,6 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('the planner
     await page.getByText(/Moved Hill reps to Runner 03/).waitFor()
     const [handed] = (await db.execute({ sql: 'select athlete_id from assignments where id = ?', args: [first!.id] })).rows as unknown as { athlete_id: number }[]
     expect(Number(handed!.athlete_id)).toBe(athleteIds[2])
-    db.close()
     await context.close()
   })
 })

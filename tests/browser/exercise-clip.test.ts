@@ -1,46 +1,20 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { makeDemoClip } from '../../seeds/clip'
-import { launchBrowser, newContext, screenshotPath, viewports, waitForAuthForm } from '../support/browser'
-import { uniqueEmail } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
+import { describe, expect, it } from 'vitest'
+import { useBrowserStack, useDemoClipFile } from '../support/hooks'
+import { newContext, screenshotPath, viewports, fillRegisterForm } from '../support/browser'
 
-let stack: Stack
-let browser: Browser
-let folder: string
-let clipFile: string
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-  folder = mkdtempSync(join(tmpdir(), 'switchback-clip-'))
-  clipFile = join(folder, 'hill-sprint-demo.webm')
-  writeFileSync(clipFile, await makeDemoClip({ seconds: 3, motion: 'climb' }))
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-  if (folder) rmSync(folder, { recursive: true, force: true })
-})
+const running = useBrowserStack()
+const demoClip = useDemoClipFile('hill-sprint-demo.webm', { seconds: 3, motion: 'climb' })
 
 describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('exercise clip at %s width', (size) => {
   it('a coach creates an exercise, uploads a clip with a progress bar and plays it back', async () => {
-    const context = await newContext(browser, size)
+    const context = await newContext(running.browser, size)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/register`)
-    await waitForAuthForm(page)
-    await page.getByLabel('Your name').fill('Idris Fenn')
-    await page.getByLabel('E-mail').fill(uniqueEmail('coach'))
-    await page.getByLabel('Password').fill('a-good-long-password')
-    await page.getByLabel('Team or club name').fill('Larchford Ridge Runners')
+    await page.goto(`${running.stack.url}/register`)
+    await fillRegisterForm(page, { name: 'Idris Fenn', password: 'a-good-long-password', teamName: 'Larchford Ridge Runners' })
     await page.getByRole('button', { name: 'Create team' }).click()
     await page.waitForURL(/\/team$/)
 
-    await page.goto(`${stack.url}/exercises/new`)
+    await page.goto(`${running.stack.url}/exercises/new`)
     await page.getByRole('heading', { name: 'New exercise' }).waitFor()
     // The shared schema answers before anything is sent.
     await page.getByRole('button', { name: 'Save exercise' }).click()
@@ -70,7 +44,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('exercise cl
     const cdp = await context.newCDPSession(page)
     await cdp.send('Network.enable')
     await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 24 * 1024 })
-    await page.getByTestId('clip-file').setInputFiles(clipFile)
+    await page.getByTestId('clip-file').setInputFiles(demoClip.path)
     const progress = page.getByRole('progressbar', { name: 'Upload progress' })
     await progress.waitFor()
     await expect.poll(async () => Number(await progress.getAttribute('aria-valuenow')), { timeout: 30_000 }).toBeGreaterThan(0)
@@ -105,7 +79,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('exercise cl
     await page.getByRole('button', { name: 'Replace clip' }).waitFor()
     await page.screenshot({ path: screenshotPath(`exercise-clip-${size}`), fullPage: true })
 
-    await page.goto(`${stack.url}/exercises?hasClip=true`)
+    await page.goto(`${running.stack.url}/exercises?hasClip=true`)
     const link = page.getByRole('link', { name: /Short hill sprints/ })
     await link.first().waitFor()
     expect(await link.filter({ visible: true }).count()).toBe(1)

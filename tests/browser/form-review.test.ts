@@ -1,57 +1,36 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, BrowserContext } from 'playwright-core'
-import { makeDemoClip } from '../../seeds/clip'
-import { launchBrowser, newContext, screenshotPath } from '../support/browser'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { describe, expect, it } from 'vitest'
+import type { BrowserContext } from 'playwright-core'
+import { useBrowserStack, useDemoClipFile } from '../support/hooks'
+import { newContext, screenshotPath, signInByRequest } from '../support/browser'
+import { addAthlete, registerCoach } from '../support/team'
 
-let stack: Stack
-let browser: Browser
-let folder: string
-let clipFile: string
+const running = useBrowserStack()
+const demoClip = useDemoClipFile('my-a-skips.webm', { seconds: 4, framesPerSecond: 10, motion: 'run' })
 
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-  folder = mkdtempSync(join(tmpdir(), 'switchback-review-'))
-  clipFile = join(folder, 'my-a-skips.webm')
-  writeFileSync(clipFile, await makeDemoClip({ seconds: 4, framesPerSecond: 10, motion: 'run' }))
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-  if (folder) rmSync(folder, { recursive: true, force: true })
-})
-
-async function signIn(context: BrowserContext, email: string) {
-  const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email, password: PASSWORD } })
-  expect(response.status()).toBe(200)
+function signIn(context: BrowserContext, email: string) {
+  return signInByRequest(context, running.stack.url, email)
 }
 
 describe('form review', () => {
   it('an athlete sends a clip, a coach comments at 0:02 and answers, and the athlete jumps to the comment', async () => {
-    const team = await registerCoach(stack)
-    const athlete = await addAthlete(stack, team.coach, { name: 'Ffion Aske' })
+    const team = await registerCoach(running.stack)
+    const athlete = await addAthlete(running.stack, team.coach, { name: 'Ffion Aske' })
 
-    const athleteContext = await newContext(browser, 'phone')
+    const athleteContext = await newContext(running.browser, 'phone')
     await signIn(athleteContext, athlete.email)
     const page = await athleteContext.newPage()
-    await page.goto(`${stack.url}/reviews`)
-    await page.getByLabel('Or pick a video file').setInputFiles(clipFile)
+    await page.goto(`${running.stack.url}/reviews`)
+    await page.getByLabel('Or pick a video file').setInputFiles(demoClip.path)
     await page.getByLabel('Your question (optional)').fill('Is my knee drive high enough?')
     await page.getByRole('button', { name: 'Send for review' }).click()
     await page.waitForURL(/\/reviews\/\d+$/)
     const reviewUrl = page.url()
     await page.getByText('No comments yet.').waitFor()
 
-    const coachContext = await newContext(browser, 'desktop')
+    const coachContext = await newContext(running.browser, 'desktop')
     await signIn(coachContext, team.email)
     const coachPage = await coachContext.newPage()
-    await coachPage.goto(`${stack.url}/reviews`)
+    await coachPage.goto(`${running.stack.url}/reviews`)
     await coachPage.getByRole('heading', { name: 'Clips to review (1 open)' }).waitFor()
     await coachPage.getByRole('link', { name: /Ffion Aske/ }).click()
     await coachPage.waitForURL(reviewUrl)
@@ -69,7 +48,7 @@ describe('form review', () => {
     await coachPage.getByTestId('review-comment').getByText('Knee higher here').waitFor()
     await coachPage.getByRole('button', { name: 'Mark answered' }).click()
     await coachPage.getByText('Answered', { exact: true }).waitFor()
-    await stack.mail.waitFor(athlete.email, /answered your form review/)
+    await running.stack.mail.waitFor(athlete.email, /answered your form review/)
     await coachContext.close()
 
     await page.reload()

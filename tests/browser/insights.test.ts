@@ -1,32 +1,26 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
 import type { Database } from '../../server/db/client'
 import { addDays, todayIn } from '../../shared/utils/dates'
-import { launchBrowser, newContext, screenshotPath, viewports, signInThroughPage } from '../support/browser'
+import { newContext, screenshotPath, viewports, signInThroughPage } from '../support/browser'
 import { createRoutine, insertHistory, insertPainFlag, openTestDatabase } from '../support/insights-data'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
+const running = useBrowserStack()
 let db: Database
 
 beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-  db = await openTestDatabase(stack.databaseUrl)
+  db = await openTestDatabase(running.stack.databaseUrl)
 })
 
 afterAll(async () => {
   db?.$client.close()
-  await browser?.close()
-  await stack?.stop()
 })
 
 describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('insights at %s width', (size) => {
   it('a coach opens an athlete with a pain flag, sees the load chart and acknowledges the flag', async () => {
-    const { teamId, email, coach } = await registerCoach(stack, 'Larchford Ridge Runners')
-    const athlete = await addAthlete(stack, coach, { name: 'Ffion Aske' })
+    const { teamId, email, coach } = await registerCoach(running.stack, 'Larchford Ridge Runners')
+    const athlete = await addAthlete(running.stack, coach, { name: 'Ffion Aske' })
     const today = todayIn('UTC')
     const routine = await createRoutine(db, teamId, 'Ridge hill reps')
     const sessions = await insertHistory(db, {
@@ -46,11 +40,11 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('insights at
     })
     await insertPainFlag(db, { teamId, athleteId: athlete.userId, sessionId: sessions.find(s => s.day === addDays(today, -1))!.id, pain: 7, area: 'knee' })
 
-    const context = await newContext(browser, size)
-    const page = await signInThroughPage(context, stack.url, email)
+    const context = await newContext(running.browser, size)
+    const page = await signInThroughPage(context, running.stack.url, email)
     await page.waitForURL(/\/coach$/)
 
-    await page.goto(`${stack.url}/insights`)
+    await page.goto(`${running.stack.url}/insights`)
     await page.getByRole('heading', { name: 'Insights', exact: true }).waitFor()
     await page.getByRole('heading', { name: 'Open pain flags (1)' }).waitFor()
     // This week's load jumped, so the ratio is marked with a word, not only a colour.
@@ -76,15 +70,15 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('insights at
     await page.getByText('Morwen Tay replied:').waitFor()
     expect(await page.getByRole('button', { name: 'Acknowledge' }).count()).toBe(0)
 
-    await page.goto(`${stack.url}/insights`)
+    await page.goto(`${running.stack.url}/insights`)
     await page.getByText('No open pain flags.').waitFor()
     await context.close()
 
     // The athlete reads the reply on their progress page.
-    const athleteContext = await newContext(browser, size)
-    const athletePage = await signInThroughPage(athleteContext, stack.url, athlete.email)
+    const athleteContext = await newContext(running.browser, size)
+    const athletePage = await signInThroughPage(athleteContext, running.stack.url, athlete.email)
     await athletePage.waitForURL(/\/today$/)
-    await athletePage.goto(`${stack.url}/progress`)
+    await athletePage.goto(`${running.stack.url}/progress`)
     await athletePage.getByRole('heading', { name: 'Replies from your coach' }).waitFor()
     await athletePage.getByText('Flat easy runs until Friday').first().waitFor()
     await athletePage.getByRole('img', { name: /Weekly load for 12 weeks/ }).waitFor()

@@ -1,25 +1,21 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { beforeAll, describe, expect, it } from 'vitest'
+import type { BrowserContext, Page } from 'playwright-core'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
 import { addDays } from '../../shared/utils/dates'
 import { makeDemoClip } from '../../seeds/clip'
 import type { ApiClient } from '../support/client'
-import { launchBrowser, newContext, screenshotPath } from '../support/browser'
-import { Fixtures } from '../support/fixtures'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { newContext, screenshotPath, signInByRequest } from '../support/browser'
+import { addAthlete, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
+import type { Logbook } from '../../types/api'
 
 // The athlete side with no network: a real service worker in Chromium, the built server, the
 // object store with a real clip. Everything is fetched ahead online, then the context goes offline.
 
-let stack: Stack
-let browser: Browser
-let fixtures: Fixtures
+const running = useBrowserStack({ env: { NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' } })
 let team: Awaited<ReturnType<typeof registerCoach>>
 let snapshot: AssignmentSnapshot
 let today: string
-
-interface LogbookSession { id: number, assignmentId: number, sessionRpe: number | null, finishedAt: string | null, entries: { stepId: string, set: number | null, reps: number | null }[] }
 
 async function uploadClip(coach: ApiClient, exerciseId: number) {
   const body = await makeDemoClip({ seconds: 3, motion: 'climb' })
@@ -32,17 +28,14 @@ async function uploadClip(coach: ApiClient, exerciseId: number) {
 }
 
 beforeAll(async () => {
-  stack = await startStack({ NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' })
-  browser = await launchBrowser()
-  fixtures = new Fixtures(stack)
-  team = await registerCoach(stack)
-  const squat = await fixtures.exercise(team.teamId, {
+  team = await registerCoach(running.stack)
+  const squat = await running.fixtures.exercise(team.teamId, {
     name: 'Goblet squat',
     cues: ['Elbows inside the knees'],
     equipment: ['Kettlebell'],
     cautions: [{ text: 'Stop on sharp knee pain.', bodyAreas: ['knee'] }],
   })
-  const stepUp = await fixtures.exercise(team.teamId, { name: 'Step-up', equipment: ['Box'] })
+  const stepUp = await running.fixtures.exercise(team.teamId, { name: 'Step-up', equipment: ['Box'] })
   await uploadClip(team.coach, squat.id)
   snapshot = {
     title: 'Basement circuit',
@@ -58,22 +51,15 @@ beforeAll(async () => {
   }
 })
 
-afterAll(async () => {
-  fixtures?.close()
-  await browser?.close()
-  await stack?.stop()
-})
-
 async function newAthlete(name: string) {
-  const athlete = await addAthlete(stack, team.coach, { name })
+  const athlete = await addAthlete(running.stack, team.coach, { name })
   const mine = await athlete.athlete.get<{ today: string }>('/api/me/assignments')
   today = mine.data.today
   return athlete
 }
 
-async function signIn(context: BrowserContext, email: string) {
-  const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email, password: PASSWORD } })
-  expect(response.status()).toBe(200)
+function signIn(context: BrowserContext, email: string) {
+  return signInByRequest(context, running.stack.url, email)
 }
 
 /** Waits until the service worker controls the page and the fetch-ahead has finished. */
@@ -103,20 +89,20 @@ async function waitForStep(page: Page, name: string) {
 describe('the athlete side with no network', () => {
   it('opens Today and a session from cold offline, plays the kept clip, logs it all and sends each log once when back online', async () => {
     const athlete = await newAthlete('Wren Calder')
-    await fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Sore under the kneecap on stairs')
-    const session = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { date: today })
-    const soon = await fixtures.assignment(team.teamId, athlete.userId, { ...snapshot, title: 'Hill strength, later this week' }, { date: addDays(today, 3) })
-    const later = await fixtures.assignment(team.teamId, athlete.userId, { ...snapshot, title: 'Far-off circuit' }, { date: addDays(today, 20) })
+    await running.fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Sore under the kneecap on stairs')
+    const session = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { date: today })
+    const soon = await running.fixtures.assignment(team.teamId, athlete.userId, { ...snapshot, title: 'Hill strength, later this week' }, { date: addDays(today, 3) })
+    const later = await running.fixtures.assignment(team.teamId, athlete.userId, { ...snapshot, title: 'Far-off circuit' }, { date: addDays(today, 20) })
 
-    const context = await newContext(browser, 'phone')
+    const context = await newContext(running.browser, 'phone')
     await signIn(context, athlete.email)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/today`)
+    await page.goto(`${running.stack.url}/today`)
     await page.getByRole('heading', { name: 'Today', exact: true }).waitFor()
     // Desktop Chromium does not tell the connection type, so clips wait for the athlete's say-so.
     await waitUntilReadyOffline(page, 0)
 
-    await page.goto(`${stack.url}/profile`)
+    await page.goto(`${running.stack.url}/profile`)
     const downloads = page.getByTestId('offline-downloads')
     await downloads.getByText(/Clips were not fetched: not on Wi-Fi/).waitFor()
     await downloads.getByRole('checkbox', { name: 'Also fetch clips over mobile data' }).check()
@@ -125,15 +111,15 @@ describe('the athlete side with no network', () => {
 
     const kept = await cachedUrls(page)
     const reads = kept['switchback-api-v1'] ?? []
-    expect(reads).toContain(`${stack.url}/api/assignments/${session.id}/plan`)
-    expect(reads).toContain(`${stack.url}/api/assignments/${soon.id}/plan`)
-    expect(reads).not.toContain(`${stack.url}/api/assignments/${later.id}/plan`)
+    expect(reads).toContain(`${running.stack.url}/api/assignments/${session.id}/plan`)
+    expect(reads).toContain(`${running.stack.url}/api/assignments/${soon.id}/plan`)
+    expect(reads).not.toContain(`${running.stack.url}/api/assignments/${later.id}/plan`)
     expect(kept['switchback-clips-v1']).toHaveLength(1)
-    expect(kept['switchback-clips-v1']![0]).toMatch(new RegExp(`^${stack.s3.endpoint}/${stack.s3.bucket}/teams/${team.teamId}/exercises/\\d+/[^?]+$`))
+    expect(kept['switchback-clips-v1']![0]).toMatch(new RegExp(`^${running.stack.s3.endpoint}/${running.stack.s3.bucket}/teams/${team.teamId}/exercises/\\d+/[^?]+$`))
 
     // No signal from here on.
     await context.setOffline(true)
-    await page.goto(`${stack.url}/today`)
+    await page.goto(`${running.stack.url}/today`)
     await page.getByRole('heading', { name: 'Today', exact: true }).waitFor()
     await page.getByText('Basement circuit').first().waitFor()
     await page.getByText('Hill strength, later this week').waitFor()
@@ -143,7 +129,7 @@ describe('the athlete side with no network', () => {
 
     // A fresh page, as when the app is opened from the home screen.
     const cold = await context.newPage()
-    await cold.goto(`${stack.url}/session/${session.id}?speed=20`)
+    await cold.goto(`${running.stack.url}/session/${session.id}?speed=20`)
     await cold.getByRole('heading', { name: 'Basement circuit' }).waitFor()
     expect(await cold.getByTestId('injury-cautions').textContent()).toContain('Stop on sharp knee pain.')
     await cold.getByRole('checkbox', { name: /I have read the cautions/ }).check()
@@ -177,7 +163,7 @@ describe('the athlete side with no network', () => {
     expect(await cold.getByTestId('logged-entry').count()).toBe(3)
     // start, three entries and the finish wait on the phone; the server has nothing yet.
     await cold.getByTestId('offline-status').getByText(/5 logs are waiting to send/).waitFor()
-    const [before] = await fixtures.rows<{ count: number }>('select count(*) as count from session_logs where assignment_id = ?', [session.id])
+    const [before] = await running.fixtures.rows<{ count: number }>('select count(*) as count from session_logs where assignment_id = ?', [session.id])
     expect(Number(before!.count)).toBe(0)
 
     // Both open pages hold the same queue and both try to send it when the network returns.
@@ -187,34 +173,34 @@ describe('the athlete side with no network', () => {
     await cold.reload()
     await cold.waitForLoadState('networkidle')
 
-    const logs = await fixtures.rows<{ id: number, finished_at: number | null, session_rpe: number | null }>('select id, finished_at, session_rpe from session_logs where assignment_id = ?', [session.id])
+    const logs = await running.fixtures.rows<{ id: number, finished_at: number | null, session_rpe: number | null }>('select id, finished_at, session_rpe from session_logs where assignment_id = ?', [session.id])
     expect(logs).toHaveLength(1)
     expect(logs[0]!.finished_at).not.toBeNull()
     expect(logs[0]!.session_rpe).toBe(6)
-    const entries = await fixtures.rows<{ step_id: string, set_number: number | null, reps: number | null }>('select * from entry_logs where session_id = ? order by id', [logs[0]!.id])
+    const entries = await running.fixtures.rows<{ step_id: string, set_number: number | null, reps: number | null }>('select * from entry_logs where session_id = ? order by id', [logs[0]!.id])
     expect(entries.map(entry => entry.step_id)).toEqual(['squat', 'squat', 'step'])
-    const logbook = await athlete.athlete.get<{ sessions: LogbookSession[] }>('/api/me/logbook')
+    const logbook = await athlete.athlete.get<Logbook>('/api/me/logbook')
     const stored = logbook.data.sessions.filter(item => item.assignmentId === session.id)
     expect(stored).toHaveLength(1)
     expect(stored[0]!.entries.map(entry => [entry.stepId, entry.set, entry.reps])).toEqual([['squat', 1, 7], ['squat', 2, 8], ['step', null, null]])
-    const [assignment] = await fixtures.rows<{ status: string }>('select status from assignments where id = ?', [session.id])
+    const [assignment] = await running.fixtures.rows<{ status: string }>('select status from assignments where id = ?', [session.id])
     expect(assignment!.status).toBe('done')
     await context.close()
   })
 
   it('signing out offline leaves nothing of the athlete in the caches or storage, and the sign-out reaches the server later', async () => {
     const athlete = await newAthlete('Oren Blythe')
-    const session = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { date: today })
-    const context = await newContext(browser, 'phone')
+    const session = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { date: today })
+    const context = await newContext(running.browser, 'phone')
     await signIn(context, athlete.email)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/today`)
+    await page.goto(`${running.stack.url}/today`)
     await page.evaluate(() => localStorage.setItem('switchback.offline.clipsOnMobileData', 'true'))
     await page.reload()
     await waitUntilReadyOffline(page, 1)
 
     await context.setOffline(true)
-    await page.goto(`${stack.url}/session/${session.id}?speed=20`)
+    await page.goto(`${running.stack.url}/session/${session.id}?speed=20`)
     await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
     await page.getByRole('button', { name: 'Start session' }).click()
     await waitForStep(page, 'Goblet squat')
@@ -248,7 +234,7 @@ describe('the athlete side with no network', () => {
     // No read of the API and nothing from the object store (build file names are random, so look for addresses).
     const cachedText = left.cached.join(' ')
     expect(cachedText).not.toContain('/api/')
-    expect(cachedText).not.toContain(stack.s3.endpoint)
+    expect(cachedText).not.toContain(running.stack.s3.endpoint)
     expect(cachedText).not.toContain('/teams/')
     expect(Object.keys(left.local).filter(key => key.startsWith('switchback.'))).toEqual([])
     const everything = JSON.stringify(left)
@@ -260,22 +246,22 @@ describe('the athlete side with no network', () => {
 
     // Back online, the next page sends the waiting sign-out before anything else: the cookie is dead.
     await context.setOffline(false)
-    await page.goto(`${stack.url}/today`)
+    await page.goto(`${running.stack.url}/today`)
     await page.waitForURL(/\/login/)
-    const me = await context.request.get(`${stack.url}/api/me`)
+    const me = await context.request.get(`${running.stack.url}/api/me`)
     expect(me.status()).toBe(401)
     expect(await page.evaluate(async () => (await caches.keys()).includes('switchback-meta-v1') && Boolean(await (await caches.open('switchback-meta-v1')).match('/__switchback/sign-out-pending')))).toBe(false)
     // Nothing of the unfinished session reached the server.
-    const [logs] = await fixtures.rows<{ count: number }>('select count(*) as count from session_logs where assignment_id = ?', [session.id])
+    const [logs] = await running.fixtures.rows<{ count: number }>('select count(*) as count from session_logs where assignment_id = ?', [session.id])
     expect(Number(logs!.count)).toBe(0)
     await context.close()
   })
 
   it('gives a coach a clear offline message instead of a blank page, and keeps none of the coach\'s reads', async () => {
-    const context = await newContext(browser, 'desktop')
+    const context = await newContext(running.browser, 'desktop')
     await signIn(context, team.email)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/planner`)
+    await page.goto(`${running.stack.url}/planner`)
     await expect.poll(() => page.getByTestId('offline-status').getAttribute('data-worker'), { timeout: 60_000 }).toBe('ready')
     await expect.poll(() => page.evaluate(() => Boolean(navigator.serviceWorker.controller)), { timeout: 30_000 }).toBe(true)
 
@@ -284,7 +270,7 @@ describe('the athlete side with no network', () => {
     await page.getByRole('link', { name: 'Library' }).click()
     await page.getByTestId('offline-status').getByText(/Coach pages need a connection/).waitFor()
     // Opening a coach page from cold: the offline page, not an empty screen.
-    await page.goto(`${stack.url}/insights`)
+    await page.goto(`${running.stack.url}/insights`)
     await page.getByRole('heading', { name: 'You are offline' }).waitFor()
     expect(await page.getByRole('alert').textContent()).toMatch(/coach pages .* load fresh from the server/)
     await page.screenshot({ path: screenshotPath('offline-coach-desktop'), fullPage: true })

@@ -1,33 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { launchBrowser, newContext, screenshotPath, viewports, waitForAuthForm } from '../support/browser'
+import { describe, expect, it } from 'vitest'
+import { newContext, screenshotPath, viewports, waitForAuthForm, fillRegisterForm } from '../support/browser'
 import { uniqueEmail } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
-import { startStack, type Stack } from '../support/stack'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-})
+const running = useBrowserStack()
 
 describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('onboarding at %s width', (size) => {
   it('a coach registers and invites an athlete, who joins from the e-mailed link and lands on their home page', async () => {
-    const coachContext = await newContext(browser, size)
+    const coachContext = await newContext(running.browser, size)
     const coach = await coachContext.newPage()
-    await coach.goto(`${stack.url}/register`)
-    await waitForAuthForm(coach)
-    await coach.getByLabel('Your name').fill('Morwen Tay')
-    await coach.getByLabel('E-mail').fill(uniqueEmail('coach'))
-    await coach.getByLabel('Password').fill('short')
-    await coach.getByLabel('Team or club name').fill('Larchford Ridge Runners')
+    await coach.goto(`${running.stack.url}/register`)
+    await fillRegisterForm(coach, { name: 'Morwen Tay', password: 'short', teamName: 'Larchford Ridge Runners' })
     await coach.getByRole('button', { name: 'Create team' }).click()
     // The shared schema catches the weak password before anything is sent.
     await expect.poll(() => coach.getByText('Use at least 10 characters').isVisible()).toBe(true)
@@ -45,10 +29,10 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('onboarding 
     await coach.getByText(athleteEmail, { exact: true }).first().waitFor()
     await coach.screenshot({ path: screenshotPath(`onboarding-team-${size}`), fullPage: true })
 
-    const mail = await stack.mail.waitFor(athleteEmail, /invited you/)
+    const mail = await running.stack.mail.waitFor(athleteEmail, /invited you/)
     const link = linkIn(mail, /http:\/\/127\.0\.0\.1:\d+\/join\/[\w-]+/)
 
-    const athleteContext = await newContext(browser, size)
+    const athleteContext = await newContext(running.browser, size)
     const athlete = await athleteContext.newPage()
     await athlete.goto(link)
     await athlete.getByRole('heading', { name: 'Join Larchford Ridge Runners' }).waitFor()
@@ -60,7 +44,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('onboarding 
     await athlete.getByRole('heading', { name: 'Today', exact: true }).waitFor()
     expect(await athlete.getByText('Hello Tamsin Rook').isVisible()).toBe(true)
     // Athletes are kept out of coach pages.
-    await athlete.goto(`${stack.url}/team`)
+    await athlete.goto(`${running.stack.url}/team`)
     await athlete.waitForURL(/\/today$/)
     await athlete.screenshot({ path: screenshotPath(`onboarding-athlete-${size}`), fullPage: true })
 

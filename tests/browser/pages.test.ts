@@ -1,15 +1,14 @@
 import { resolve } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
-import { launchBrowser, newContext, screenshotPath, viewports } from '../support/browser'
-import { Fixtures } from '../support/fixtures'
+import { beforeAll, describe, expect, it } from 'vitest'
+import type { BrowserContext, Page } from 'playwright-core'
+import { newContext, screenshotPath, viewports, signInByRequest } from '../support/browser'
 import { createRoutine, insertHistory, openTestDatabase } from '../support/insights-data'
 import { linkIn } from '../support/mail-catcher'
 import { hillSteps } from '../support/planner'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { addAthlete, registerCoach } from '../support/team'
 import { formatDate } from '../../shared/utils/date-format'
 import { addDays, todayIn } from '../../shared/utils/dates'
+import { useBrowserStack } from '../support/hooks'
 
 // Every page, at a phone's width and a laptop's, signed out, as a coach and as an athlete.
 // To cover a new page, add a row: `{path}` placeholders are filled from the team made in beforeAll.
@@ -50,21 +49,17 @@ const pages: PageVisit[] = [
 
 const axeScript = resolve(import.meta.dirname, '../../node_modules/axe-core/axe.min.js')
 
-let stack: Stack
-let browser: Browser
+const running = useBrowserStack()
 const people: Partial<Record<Who, { email: string }>> = {}
 const values: Record<string, string> = {}
 
 beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-  const team = await registerCoach(stack, 'Larchford Ridge Runners with a rather long club name')
+  const team = await registerCoach(running.stack, 'Larchford Ridge Runners with a rather long club name')
   people.coach = { email: team.email }
-  const athlete = await addAthlete(stack, team.coach, { name: 'Ffion Aske-Penhallow' })
+  const athlete = await addAthlete(running.stack, team.coach, { name: 'Ffion Aske-Penhallow' })
   people.athlete = { email: athlete.email }
 
-  const fixtures = new Fixtures(stack)
-  const exercise = await fixtures.exercise(team.teamId, {
+  const exercise = await running.fixtures.exercise(team.teamId, {
     name: 'Hill bounds on the old quarry track',
     category: 'hill',
     summary: 'Long, springy strides up a gentle slope.',
@@ -72,21 +67,20 @@ beforeAll(async () => {
     equipment: ['Cones'],
     cautions: [{ text: 'Walk back down to spare the knees', bodyAreas: ['knee'] }],
   })
-  await fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Aches on descents')
+  await running.fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Aches on descents')
   const steps = hillSteps(exercise.id)
-  const routineId = await fixtures.routine(team.teamId, { title: 'Ridge Lane hill reps with a long title that wraps', category: 'hills', steps: steps as never })
+  const routineId = await running.fixtures.routine(team.teamId, { title: 'Ridge Lane hill reps with a long title that wraps', category: 'hills', steps: steps as never })
   const today = todayIn('UTC')
-  const { id: assignmentId } = await fixtures.assignment(team.teamId, athlete.userId, {
+  const { id: assignmentId } = await running.fixtures.assignment(team.teamId, athlete.userId, {
     title: 'Ridge Lane hill reps with a long title that wraps',
     category: 'hills',
     description: 'Eight climbs of the lane',
     steps: steps as never,
     exercises: [exercise],
   }, { date: today, routineId })
-  const otherRoutineId = await fixtures.routine(team.teamId, { title: 'Quarry strides', category: 'drills', steps: [] })
-  fixtures.close()
+  const otherRoutineId = await running.fixtures.routine(team.teamId, { title: 'Quarry strides', category: 'drills', steps: [] })
 
-  const db = await openTestDatabase(stack.databaseUrl)
+  const db = await openTestDatabase(running.stack.databaseUrl)
   const history = await createRoutine(db, team.teamId, 'Tuesday gym circuit')
   await insertHistory(db, {
     teamId: team.teamId,
@@ -110,7 +104,7 @@ beforeAll(async () => {
   // A pending invite for the join page.
   const inviteEmail = `pending.${Date.now()}@example.test`
   await team.coach.post('/api/invites', { email: inviteEmail, role: 'athlete' })
-  const mail = await stack.mail.waitFor(inviteEmail, /invited you/)
+  const mail = await running.stack.mail.waitFor(inviteEmail, /invited you/)
   Object.assign(values, {
     inviteToken: linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!,
     exerciseId: String(exercise.id),
@@ -120,11 +114,6 @@ beforeAll(async () => {
     assignmentId: String(assignmentId),
     blockId: String(block.data.id),
   })
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
 })
 
 const fill = (path: string) => path.replace(/\{(\w+)\}/g, (_, name: string) => {
@@ -137,11 +126,10 @@ async function contextFor(as: Who, size: keyof typeof viewports) {
   const key = `${as}-${size}`
   let context = contexts.get(key)
   if (!context) {
-    context = await newContext(browser, size)
+    context = await newContext(running.browser, size)
     const person = people[as as 'coach' | 'athlete']
     if (person) {
-      const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email: person.email, password: PASSWORD } })
-      expect(response.status()).toBe(200)
+      await signInByRequest(context, running.stack.url, person.email)
     }
     contexts.set(key, context)
   }
@@ -198,7 +186,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('every page 
     page.on('pageerror', error => problems.push(`page error: ${error.message}`))
     try {
       const url = fill(path)
-      const response = await page.goto(`${stack.url}${url}`, { waitUntil: 'networkidle' })
+      const response = await page.goto(`${running.stack.url}${url}`, { waitUntil: 'networkidle' })
       expect(response?.status(), `${url} answered ${response?.status()}`).toBeLessThan(400)
       await page.waitForFunction(() => Boolean((document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__))
       await page.waitForLoadState('networkidle')
@@ -224,7 +212,7 @@ describe('navigation on a phone', () => {
 
   it('shows a coach every destination from the menu, and closes it with Escape back onto its button', async () => {
     const page = await (await contextFor('coach', 'phone')).newPage()
-    await page.goto(`${stack.url}/routines`)
+    await page.goto(`${running.stack.url}/routines`)
     const menu = page.getByRole('button', { name: 'Menu' })
     expect(await menu.getAttribute('aria-expanded')).toBe('false')
     expect(await visible(page, 'Insights')).toBe(false)
@@ -243,7 +231,7 @@ describe('navigation on a phone', () => {
 
   it('keeps an athlete\'s four destinations in a bar at the bottom of the screen', async () => {
     const page = await (await contextFor('athlete', 'phone')).newPage()
-    await page.goto(`${stack.url}/today`)
+    await page.goto(`${running.stack.url}/today`)
     const bar = page.getByRole('navigation', { name: 'Main, at the bottom' })
     for (const name of ['Today', 'Logbook', 'Progress', 'Profile']) {
       const box = await bar.getByRole('link', { name, exact: true }).boundingBox()
@@ -260,16 +248,15 @@ describe('navigation on a phone', () => {
 
 describe('dates in the reader\'s language and time zone', () => {
   it('renders the logbook the same on the server and in a German browser far from UTC', async () => {
-    const context = await browser.newContext({ viewport: viewports.phone, locale: 'de-DE', timezoneId: 'Pacific/Auckland' })
-    const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email: people.athlete!.email, password: PASSWORD } })
-    expect(response.status()).toBe(200)
+    const context = await running.browser.newContext({ viewport: viewports.phone, locale: 'de-DE', timezoneId: 'Pacific/Auckland' })
+    await signInByRequest(context, running.stack.url, people.athlete!.email)
     for (const visit of ['first', 'second']) {
       const page = await context.newPage()
       const problems: string[] = []
       page.on('console', (message) => {
         if (message.type() === 'error' || /hydrat/i.test(message.text())) problems.push(message.text())
       })
-      await page.goto(`${stack.url}/logbook`, { waitUntil: 'networkidle' })
+      await page.goto(`${running.stack.url}/logbook`, { waitUntil: 'networkidle' })
       const yesterday = addDays(todayIn('UTC'), -1)
       // The calendar day of the session, in German words: "Di., 1. Dez. 2026".
       await page.getByText(formatDate(yesterday, 'day', { locale: 'de-DE', timeZone: 'Pacific/Auckland' })).first().waitFor()
@@ -285,7 +272,7 @@ describe('dates in the reader\'s language and time zone', () => {
 describe('our own confirmation dialog', () => {
   it('asks before withdrawing an invitation, keeps focus inside and gives it back', async () => {
     const page = await (await contextFor('coach', 'phone')).newPage()
-    await page.goto(`${stack.url}/team`, { waitUntil: 'networkidle' })
+    await page.goto(`${running.stack.url}/team`, { waitUntil: 'networkidle' })
     const withdraw = page.getByRole('button', { name: 'Withdraw' }).first()
     await withdraw.focus()
     await page.keyboard.press('Enter')

@@ -1,41 +1,28 @@
-import type { Browser } from 'playwright-core'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
-import { launchBrowser, newContext, signInThroughPage, screenshotPath } from '../support/browser'
-import { insertRoutine, openTestDb } from '../support/planner'
-import { startStack, type Stack } from '../support/stack'
+import { newContext, signInThroughPage, screenshotPath } from '../support/browser'
+import { insertRoutine } from '../support/planner'
 import { addAthlete, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-})
+const running = useBrowserStack()
 
 async function signIn(context: Awaited<ReturnType<typeof newContext>>, email: string) {
-  return signInThroughPage(context, stack.url, email)
+  return signInThroughPage(context, running.stack.url, email)
 }
 
 describe('planner in Chromium', () => {
   it('a coach plans hill reps for a squad on Tuesdays and Fridays for 10 weeks; the athlete sees them under Upcoming', async () => {
-    const team = await registerCoach(stack)
+    const team = await registerCoach(running.stack)
     const squad = await team.coach.post<{ id: number }>('/api/squads', { name: 'Ridge group' })
-    const athlete = await addAthlete(stack, team.coach, { squadId: squad.data.id, name: 'Tamsin Rook' })
-    const db = openTestDb(stack)
+    const athlete = await addAthlete(running.stack, team.coach, { squadId: squad.data.id, name: 'Tamsin Rook' })
+    const db = running.db
     await insertRoutine(db, team.teamId, { title: 'Ridge road hill reps', category: 'hills' })
-    db.close()
 
     const nextMonday = addDays(startOfWeek(todayIn('UTC')), 7)
-    const coachContext = await newContext(browser, 'desktop')
+    const coachContext = await newContext(running.browser, 'desktop')
     const page = await signIn(coachContext, team.email)
-    await page.goto(`${stack.url}/planner`)
+    await page.goto(`${running.stack.url}/planner`)
     await page.getByRole('heading', { name: 'Planner' }).waitFor()
 
     const form = page.locator('form[aria-labelledby="assign-heading"]')
@@ -67,17 +54,17 @@ describe('planner in Chromium', () => {
     await page.getByRole('table').waitFor()
     await page.screenshot({ path: screenshotPath('planner-month-desktop'), fullPage: true })
 
-    const phoneCoach = await newContext(browser, 'phone')
+    const phoneCoach = await newContext(running.browser, 'phone')
     const phonePage = await signIn(phoneCoach, team.email)
-    await phonePage.goto(`${stack.url}/planner`)
+    await phonePage.goto(`${running.stack.url}/planner`)
     await phonePage.getByRole('heading', { name: 'Planner' }).waitFor()
     await phonePage.screenshot({ path: screenshotPath('planner-phone'), fullPage: true })
     await phoneCoach.close()
     await coachContext.close()
 
-    const athleteContext = await newContext(browser, 'phone')
+    const athleteContext = await newContext(running.browser, 'phone')
     const athletePage = await signIn(athleteContext, athlete.email)
-    await athletePage.goto(`${stack.url}/today`)
+    await athletePage.goto(`${running.stack.url}/today`)
     const upcoming = athletePage.getByRole('region', { name: 'Upcoming' })
     await upcoming.getByText('Ridge road hill reps').first().waitFor()
     const links = upcoming.getByRole('link', { name: /Ridge road hill reps/ })
@@ -96,9 +83,9 @@ describe('planner in Chromium', () => {
     expect(notices.data.notifyByEmail).toBe(false)
     await athleteContext.close()
 
-    const desktopAthlete = await newContext(browser, 'desktop')
+    const desktopAthlete = await newContext(running.browser, 'desktop')
     const desktopPage = await signIn(desktopAthlete, athlete.email)
-    await desktopPage.goto(`${stack.url}/today`)
+    await desktopPage.goto(`${running.stack.url}/today`)
     await desktopPage.getByRole('region', { name: 'Upcoming' }).getByText('Ridge road hill reps').first().waitFor()
     await desktopPage.screenshot({ path: screenshotPath('today-desktop'), fullPage: true })
     await desktopAthlete.close()

@@ -1,64 +1,42 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, BrowserContext } from 'playwright-core'
+import { describe, expect, it } from 'vitest'
+import type { BrowserContext } from 'playwright-core'
 import { ALL_FORMATS, BufferSource, Input } from 'mediabunny'
-import { makeDemoClip } from '../../seeds/clip'
-import { fakeCameraArgs, launchBrowser, newContext, screenshotPath } from '../support/browser'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { useBrowserStack, useDemoClipFile } from '../support/hooks'
+import { fakeCameraArgs, newContext, screenshotPath, signInByRequest } from '../support/browser'
+import { addAthlete, registerCoach } from '../support/team'
+import type { FormReview } from '../../types/api'
 
 // Recording in the page with Chromium's fake camera (a moving test picture, no prompt), the review queue's
 // squad filter in the address, and the count of clips waiting in the coach's navigation.
 
-let stack: Stack
-let browser: Browser
-let folder: string
-let clipFile: string
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser(fakeCameraArgs)
-  folder = mkdtempSync(join(tmpdir(), 'switchback-recording-'))
-  clipFile = join(folder, 'hill-bounds.webm')
-  writeFileSync(clipFile, await makeDemoClip({ seconds: 3, framesPerSecond: 8, motion: 'run' }))
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-  if (folder) rmSync(folder, { recursive: true, force: true })
-})
+const running = useBrowserStack({ browserArgs: fakeCameraArgs })
+const demoClip = useDemoClipFile('hill-bounds.webm', { seconds: 3, framesPerSecond: 8, motion: 'run' })
 
 async function signedIn(email: string, size: 'phone' | 'desktop') {
-  const context = await newContext(browser, size)
-  await context.grantPermissions(['camera', 'microphone'], { origin: stack.url })
-  const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email, password: PASSWORD } })
-  expect(response.status()).toBe(200)
+  const context = await newContext(running.browser, size)
+  await context.grantPermissions(['camera', 'microphone'], { origin: running.stack.url })
+  await signInByRequest(context, running.stack.url, email)
   return context
 }
 
-interface Review { id: number, durationSeconds: number | null, clip: { url: string }, reply: { url: string } | null, status: string }
-
 async function reviewOf(context: BrowserContext, url: string) {
-  const response = await context.request.get(`${stack.url}/api${new URL(url).pathname}`)
+  const response = await context.request.get(`${running.stack.url}/api${new URL(url).pathname}`)
   expect(response.status()).toBe(200)
-  return await response.json() as Review
+  return await response.json() as FormReview
 }
 
 describe('recording a clip in the page', () => {
   it('an athlete records about 2 s and sends it; the coach sees the count, filters by squad, records a reply and sets how long clips are kept', async () => {
-    const team = await registerCoach(stack)
+    const team = await registerCoach(running.stack)
     const road = await team.coach.post<{ id: number }>('/api/squads', { name: 'Road' })
     const trail = await team.coach.post<{ id: number }>('/api/squads', { name: 'Trail' })
-    const roadRunner = await addAthlete(stack, team.coach, { name: 'Cai Penhallow', squadId: road.data.id })
-    const trailRunner = await addAthlete(stack, team.coach, { name: 'Wren Calder', squadId: trail.data.id })
+    const roadRunner = await addAthlete(running.stack, team.coach, { name: 'Cai Penhallow', squadId: road.data.id })
+    const trailRunner = await addAthlete(running.stack, team.coach, { name: 'Wren Calder', squadId: trail.data.id })
 
     // The athlete on a phone records with the camera, watches it back and sends it.
     const athleteContext = await signedIn(roadRunner.email, 'phone')
     const page = await athleteContext.newPage()
-    await page.goto(`${stack.url}/reviews`)
+    await page.goto(`${running.stack.url}/reviews`)
     await page.getByRole('button', { name: 'Record with the camera' }).click()
     await page.getByRole('timer').filter({ hasText: /Recording 0:0[2-9] of 1:00/ }).waitFor()
     await page.getByRole('button', { name: 'Stop recording' }).click()
@@ -93,8 +71,8 @@ describe('recording a clip in the page', () => {
     // Another athlete, in the other squad, picks a file.
     const trailContext = await signedIn(trailRunner.email, 'desktop')
     const trailPage = await trailContext.newPage()
-    await trailPage.goto(`${stack.url}/reviews`)
-    await trailPage.getByLabel('Or pick a video file').setInputFiles(clipFile)
+    await trailPage.goto(`${running.stack.url}/reviews`)
+    await trailPage.getByLabel('Or pick a video file').setInputFiles(demoClip.path)
     await trailPage.getByRole('button', { name: 'Send for review' }).click()
     await trailPage.waitForURL(/\/reviews\/\d+$/, { timeout: 30_000 })
     await trailContext.close()
@@ -102,7 +80,7 @@ describe('recording a clip in the page', () => {
     // The coach's navigation counts both; the queue narrows to the road squad and keeps it in the address.
     const coachContext = await signedIn(team.email, 'desktop')
     const coachPage = await coachContext.newPage()
-    await coachPage.goto(`${stack.url}/team`)
+    await coachPage.goto(`${running.stack.url}/team`)
     const reviewsLink = coachPage.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /Reviews/ })
     await expect.poll(() => reviewsLink.textContent()).toMatch(/2\s*, 2 clips waiting for an answer/)
     await reviewsLink.click()
@@ -146,7 +124,7 @@ describe('recording a clip in the page', () => {
     // On a phone the folded menu's button carries the same count.
     const phoneContext = await signedIn(team.email, 'phone')
     const phonePage = await phoneContext.newPage()
-    await phonePage.goto(`${stack.url}/team`)
+    await phonePage.goto(`${running.stack.url}/team`)
     await expect.poll(() => phonePage.getByRole('button', { name: /Menu/ }).textContent()).toMatch(/1\s*, 1 waiting/)
 
     // The head coach sets how long clips are kept, on the team screen.
@@ -158,7 +136,7 @@ describe('recording a clip in the page', () => {
     await keep.fill('90')
     await phonePage.getByRole('button', { name: 'Save settings' }).click()
     await phonePage.getByText('Team settings saved.').waitFor()
-    const saved = await phoneContext.request.get(`${stack.url}/api/team`)
+    const saved = await phoneContext.request.get(`${running.stack.url}/api/team`)
     expect((await saved.json() as { team: { reviewRetentionDays: number } }).team.reviewRetentionDays).toBe(90)
     await keep.scrollIntoViewIfNeeded()
     await phonePage.screenshot({ path: screenshotPath('team-review-retention-phone') })
@@ -166,18 +144,18 @@ describe('recording a clip in the page', () => {
   })
 
   it('keeps "pick a file" where the camera is refused or the browser cannot record', async () => {
-    const team = await registerCoach(stack)
-    const athlete = await addAthlete(stack, team.coach)
+    const team = await registerCoach(running.stack)
+    const athlete = await addAthlete(running.stack, team.coach)
     const context = await signedIn(athlete.email, 'phone')
     await context.addInitScript(() => {
       navigator.mediaDevices.getUserMedia = () => Promise.reject(new DOMException('Permission denied', 'NotAllowedError'))
     })
     const page = await context.newPage()
-    await page.goto(`${stack.url}/reviews`)
+    await page.goto(`${running.stack.url}/reviews`)
     await page.getByRole('button', { name: 'Record with the camera' }).click()
     await page.getByRole('alert').filter({ hasText: 'The camera was not allowed' }).waitFor()
     await expect.poll(() => page.getByRole('button', { name: 'Record with the camera' }).count()).toBe(0)
-    await page.getByLabel('Pick a video file').setInputFiles(clipFile)
+    await page.getByLabel('Pick a video file').setInputFiles(demoClip.path)
     await page.getByRole('button', { name: 'Send for review' }).click()
     await page.waitForURL(/\/reviews\/\d+$/, { timeout: 30_000 })
     await context.close()
@@ -187,7 +165,7 @@ describe('recording a clip in the page', () => {
       delete (window as { MediaRecorder?: unknown }).MediaRecorder
     })
     const plain = await noRecorder.newPage()
-    await plain.goto(`${stack.url}/reviews`)
+    await plain.goto(`${running.stack.url}/reviews`)
     await plain.getByLabel('Pick a video file').waitFor()
     expect(await plain.getByRole('button', { name: 'Record with the camera' }).count()).toBe(0)
     await noRecorder.close()

@@ -1,23 +1,11 @@
-import { createClient } from '@libsql/client'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
 import { makeDemoClip } from '../../seeds/clip'
-import { launchBrowser, newContext, screenshotPath, viewports, signInThroughPage } from '../support/browser'
-import { startStack, type Stack } from '../support/stack'
+import { newContext, screenshotPath, viewports, signInThroughPage } from '../support/browser'
 import { addAthlete, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
-
-beforeAll(async () => {
-  stack = await startStack()
-  browser = await launchBrowser()
-})
-
-afterAll(async () => {
-  await browser?.close()
-  await stack?.stop()
-})
+const running = useBrowserStack()
 
 const rootOrder = (page: Page) => page.$$eval('ol[data-list-id="root"] > li > article', cards => cards.map(card => card.getAttribute('aria-label')))
 const totalTime = (page: Page) => page.getByTestId('total-time').textContent()
@@ -34,7 +22,7 @@ async function drag(page: Page, from: { x: number, y: number }, to: { x: number,
 
 describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine builder at %s width', (size) => {
   it('a coach composes a hill-rep routine, reorders it, saves, reloads and finds it intact', async () => {
-    const { coach, email } = await registerCoach(stack)
+    const { coach, email } = await registerCoach(running.stack)
     const exercise = await coach.post<{ id: number }>('/api/exercises', {
       name: 'Short hill sprints',
       category: 'hill',
@@ -47,14 +35,13 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     const signed = await coach.post<{ url: string, key: string }>(`/api/exercises/${exercise.data.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
     expect((await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(clip), headers: { 'content-type': 'video/webm' } })).status).toBe(200)
     expect((await coach.post(`/api/exercises/${exercise.data.id}/clip/confirm`, { key: signed.data.key })).status).toBe(200)
-    const { userId: athleteId } = await addAthlete(stack, coach, { name: 'Ffion Aske' })
-    const sql = createClient({ url: stack.databaseUrl })
+    const { userId: athleteId } = await addAthlete(running.stack, coach, { name: 'Ffion Aske' })
+    const sql = running.db
     await sql.execute({ sql: 'update athlete_profiles set benchmark_distance_m = 5000, benchmark_time_s = 1200 where user_id = ?', args: [athleteId] })
     await sql.execute({ sql: 'insert into injury_notes (team_id, athlete_id, body_area, status, note) select team_id, user_id, \'knee\', \'active\', \'Aches on descents\' from athlete_profiles where user_id = ?', args: [athleteId] })
-    sql.close()
 
-    const context = await newContext(browser, size)
-    const page = await signInThroughPage(context, stack.url, email, { next: '/routines/new' })
+    const context = await newContext(running.browser, size)
+    const page = await signInThroughPage(context, running.stack.url, email, { next: '/routines/new' })
     await page.getByRole('heading', { name: 'New routine' }).waitFor()
 
     // Nothing is flagged on a fresh page; leaving the empty title flags it, typing one clears it.
@@ -174,7 +161,7 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     await page.getByRole('heading', { name: 'Ridge Lane hills, from the other tab' }).waitFor()
     await expect.poll(() => page.getByTestId('save-status').textContent()).toMatch(/Saved · version 2/)
 
-    await page.goto(`${stack.url}/routines`)
+    await page.goto(`${running.stack.url}/routines`)
     await page.getByRole('link', { name: 'Ridge Lane hills, from the other tab', exact: true }).waitFor()
     await page.getByLabel('Category').selectOption({ label: 'Strength' })
     await page.getByText('No routine matches.').waitFor()
@@ -185,10 +172,10 @@ describe.each(Object.keys(viewports) as (keyof typeof viewports)[])('routine bui
     expect(await page.locator(size === 'phone' ? 'li[data-routine-id]' : 'tr[data-routine-id]').first().isVisible()).toBe(true)
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(viewports[size].width)
     await page.screenshot({ path: screenshotPath(`routine-list-${size}`), fullPage: true })
-    await page.goto(`${stack.url}/routines/${routineId}/print`)
+    await page.goto(`${running.stack.url}/routines/${routineId}/print`)
     await page.getByRole('heading', { name: 'Ridge Lane hills, from the other tab' }).waitFor()
     await expect.poll(() => page.getByTestId('routine-qr').evaluate(image => (image as HTMLImageElement).naturalWidth)).toBeGreaterThan(0)
-    expect(await page.getByTestId('routine-qr').getAttribute('alt')).toBe(`QR code for ${stack.url}/session/routine/${routineId}`)
+    expect(await page.getByTestId('routine-qr').getAttribute('alt')).toBe(`QR code for ${running.stack.url}/session/routine/${routineId}`)
     await page.emulateMedia({ media: 'print' })
     await page.screenshot({ path: screenshotPath(`routine-card-${size}`), fullPage: true })
     await context.close()

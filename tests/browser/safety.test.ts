@@ -1,14 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { beforeAll, describe, expect, it } from 'vitest'
+import type { BrowserContext, Page } from 'playwright-core'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { launchBrowser, newContext, screenshotPath } from '../support/browser'
-import { Fixtures } from '../support/fixtures'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { newContext, screenshotPath, signInByRequest } from '../support/browser'
+import { addAthlete, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
 
-let stack: Stack
-let browser: Browser
-let fixtures: Fixtures
+const running = useBrowserStack({ env: { NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' } })
 let team: Awaited<ReturnType<typeof registerCoach>>
 let athlete: Awaited<ReturnType<typeof addAthlete>>
 let hills: AssignmentSnapshot
@@ -18,14 +15,11 @@ let routineId: number
 const internalKeys = [/\bwarmup\b/i, /\bcooldown\b/i, /\blower_back\b/, /\bhigh_pain\b/, /\bnew_area\b/, /\bhead_coach\b/, /\bpercent1rm\b/, /\bfiveK\b/, /\btenK\b/, /\bquad\b/, /\boverdue\b/i, /\bclimb-k7\b/, /\bback-k7\b/]
 
 beforeAll(async () => {
-  stack = await startStack({ NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' })
-  browser = await launchBrowser()
-  fixtures = new Fixtures(stack)
-  team = await registerCoach(stack)
-  athlete = await addAthlete(stack, team.coach, { name: 'Tamsin Rook' })
-  await fixtures.injuryNote(team.teamId, athlete.userId, 'achilles', 'Stiff in the mornings after hill sessions')
-  await fixtures.injuryNote(team.teamId, athlete.userId, 'lower_back', 'Old niggle', 'resolved')
-  const bounds = await fixtures.exercise(team.teamId, { name: 'Straight-leg bounds', category: 'plyometric', cautions: [{ text: 'Stop when landings get heavy.', bodyAreas: ['achilles', 'knee', 'foot'] }] })
+  team = await registerCoach(running.stack)
+  athlete = await addAthlete(running.stack, team.coach, { name: 'Tamsin Rook' })
+  await running.fixtures.injuryNote(team.teamId, athlete.userId, 'achilles', 'Stiff in the mornings after hill sessions')
+  await running.fixtures.injuryNote(team.teamId, athlete.userId, 'lower_back', 'Old niggle', 'resolved')
+  const bounds = await running.fixtures.exercise(team.teamId, { name: 'Straight-leg bounds', category: 'plyometric', cautions: [{ text: 'Stop when landings get heavy.', bodyAreas: ['achilles', 'knee', 'foot'] }] })
   hills = {
     title: 'Eight uphill reps',
     category: 'hills',
@@ -41,18 +35,11 @@ beforeAll(async () => {
       { id: 'end-k7', type: 'block', kind: 'cooldown', measure: { by: 'time', seconds: 20 } },
     ],
   }
-  routineId = await fixtures.routine(team.teamId, { title: hills.title, category: hills.category, description: hills.description, steps: hills.steps })
+  routineId = await running.fixtures.routine(team.teamId, { title: hills.title, category: hills.category, description: hills.description, steps: hills.steps })
 })
 
-afterAll(async () => {
-  fixtures?.close()
-  await browser?.close()
-  await stack?.stop()
-})
-
-async function signIn(context: BrowserContext, email: string) {
-  const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email, password: PASSWORD } })
-  expect(response.status()).toBe(200)
+function signIn(context: BrowserContext, email: string) {
+  return signInByRequest(context, running.stack.url, email)
 }
 
 async function currentStep(page: Page) {
@@ -61,13 +48,13 @@ async function currentStep(page: Page) {
 
 describe('safety in the session player', () => {
   it('shows the injury banner on an uphill step, urgent help at every step, and urgent guidance first for severe pain', async () => {
-    const { id } = await fixtures.assignment(team.teamId, athlete.userId, hills, { routineId })
-    const context = await newContext(browser, 'phone')
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, hills, { routineId })
+    const context = await newContext(running.browser, 'phone')
     await signIn(context, athlete.email)
     const page = await context.newPage()
     page.on('dialog', dialog => void dialog.accept())
     // speed=10: each second of the routine takes 100 ms, so the climbs can be watched.
-    await page.goto(`${stack.url}/session/${id}?speed=10`)
+    await page.goto(`${running.stack.url}/session/${id}?speed=10`)
     await page.getByRole('heading', { name: 'Eight uphill reps' }).waitFor()
     const briefing = page.getByTestId('injury-cautions')
     await briefing.waitFor()
@@ -112,35 +99,35 @@ describe('words on screen', () => {
   it('shows no internal key in the main flows of a coach and an athlete', async () => {
     const seen: { path: string, key: string }[] = []
     const scan = async (page: Page, path: string) => {
-      await page.goto(`${stack.url}${path}`)
+      await page.goto(`${running.stack.url}${path}`)
       await page.waitForLoadState('networkidle')
       const text = await page.evaluate(() => document.body.innerText)
       for (const key of internalKeys) if (key.test(text)) seen.push({ path, key: String(key) })
     }
 
-    const coach = await newContext(browser, 'desktop')
+    const coach = await newContext(running.browser, 'desktop')
     await signIn(coach, team.email)
     const coachPage = await coach.newPage()
     for (const path of ['/coach', '/exercises', '/routines', `/routines/${routineId}`, `/routines/${routineId}/print`, '/planner', '/insights', `/insights/athletes/${athlete.userId}`, '/team']) {
       await scan(coachPage, path)
     }
     // The builder's preview for the athlete, with the step-derived caution.
-    await coachPage.goto(`${stack.url}/routines/${routineId}`)
+    await coachPage.goto(`${running.stack.url}/routines/${routineId}`)
     await coachPage.getByLabel('Athlete', { exact: true }).selectOption({ label: 'Tamsin Rook' })
     const matched = coachPage.getByTestId('matched-cautions')
     await matched.waitFor()
     expect(await matched.textContent()).toMatch(/Uphill efforts:/)
     for (const key of internalKeys) expect(key.test(await coachPage.evaluate(() => document.body.innerText))).toBe(false)
     // The pain report from the first test is waiting on the coach's home and in the navigation.
-    await coachPage.goto(`${stack.url}/coach`)
+    await coachPage.goto(`${running.stack.url}/coach`)
     await coachPage.getByRole('heading', { name: 'Open pain flags (1)' }).waitFor()
     await expect.poll(() => coachPage.getByTestId('nav-badge').textContent()).toMatch(/1/)
     await coach.close()
 
-    const own = await newContext(browser, 'phone')
+    const own = await newContext(running.browser, 'phone')
     await signIn(own, athlete.email)
     const athletePage = await own.newPage()
-    const { id } = await fixtures.assignment(team.teamId, athlete.userId, hills, { routineId })
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, hills, { routineId })
     for (const path of ['/today', '/logbook', '/progress', '/profile', `/session/${id}`]) {
       await scan(athletePage, path)
     }

@@ -1,41 +1,28 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { beforeAll, describe, expect, it } from 'vitest'
+import type { BrowserContext, Page } from 'playwright-core'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { launchBrowser, newContext, screenshotPath, viewports, readStepTimings, watchStepChanges } from '../support/browser'
-import { Fixtures } from '../support/fixtures'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { newContext, screenshotPath, viewports, readStepTimings, watchStepChanges, signInByRequest } from '../support/browser'
+import { addAthlete, registerCoach } from '../support/team'
+import { useBrowserStack } from '../support/hooks'
+import type { Logbook } from '../../types/api'
 
-let stack: Stack
-let browser: Browser
-let fixtures: Fixtures
+const running = useBrowserStack({ env: { NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' } })
 let team: Awaited<ReturnType<typeof registerCoach>>
 let athlete: Awaited<ReturnType<typeof addAthlete>>
 let circuit: AssignmentSnapshot
 
-interface LogbookSession {
-  id: number
-  assignmentId: number
-  sessionRpe: number | null
-  finishedAt: string | null
-  entries: { stepId: string, set: number | null, reps: number | null, kg: number | null, seconds: number | null }[]
-}
-
 beforeAll(async () => {
-  stack = await startStack({ NUXT_PUBLIC_PLAYER_SPEED_PARAM: 'true' })
-  browser = await launchBrowser()
-  fixtures = new Fixtures(stack)
-  team = await registerCoach(stack)
-  athlete = await addAthlete(stack, team.coach, { name: 'Ffion Aske' })
-  await fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Outside of the right knee aches on descents')
-  const squat = await fixtures.exercise(team.teamId, {
+  team = await registerCoach(running.stack)
+  athlete = await addAthlete(running.stack, team.coach, { name: 'Ffion Aske' })
+  await running.fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Outside of the right knee aches on descents')
+  const squat = await running.fixtures.exercise(team.teamId, {
     name: 'Goblet squat',
     cues: ['Elbows inside the knees', 'Sit between the heels'],
     equipment: ['Kettlebell'],
     cautions: [{ text: 'Keep the knees over the toes and stop on sharp knee pain.', bodyAreas: ['knee'] }],
   })
-  const plank = await fixtures.exercise(team.teamId, { name: 'Front plank', equipment: ['Mat'], cues: ['Long line from head to heel'] })
-  const stepUp = await fixtures.exercise(team.teamId, { name: 'Step-up', equipment: ['Box'] })
+  const plank = await running.fixtures.exercise(team.teamId, { name: 'Front plank', equipment: ['Mat'], cues: ['Long line from head to heel'] })
+  const stepUp = await running.fixtures.exercise(team.teamId, { name: 'Step-up', equipment: ['Box'] })
   circuit = {
     title: 'Ridge gym circuit',
     category: 'strength',
@@ -51,15 +38,8 @@ beforeAll(async () => {
   }
 })
 
-afterAll(async () => {
-  fixtures?.close()
-  await browser?.close()
-  await stack?.stop()
-})
-
-async function signIn(context: BrowserContext) {
-  const response = await context.request.post(`${stack.url}/api/auth/login`, { data: { email: athlete.email, password: PASSWORD } })
-  expect(response.status()).toBe(200)
+function signIn(context: BrowserContext) {
+  return signInByRequest(context, running.stack.url, athlete.email)
 }
 
 async function currentStep(page: Page) {
@@ -71,18 +51,18 @@ async function waitForStep(page: Page, name: string) {
 }
 
 async function logbookFor(assignmentId: number) {
-  const response = await athlete.athlete.get<{ sessions: LogbookSession[] }>('/api/me/logbook')
+  const response = await athlete.athlete.get<Logbook>('/api/me/logbook')
   return response.data.sessions.find(session => session.assignmentId === assignmentId)
 }
 
 describe('the session player', () => {
   it('runs a gym circuit on a phone, shows the knee caution, and keeps every set through an offline spell', async () => {
-    const { id } = await fixtures.assignment(team.teamId, athlete.userId, circuit)
-    const context = await newContext(browser, 'phone')
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, circuit)
+    const context = await newContext(running.browser, 'phone')
     await signIn(context)
     const page = await context.newPage()
     // speed=20: each second of the routine takes 50 ms.
-    await page.goto(`${stack.url}/session/${id}?speed=20`)
+    await page.goto(`${running.stack.url}/session/${id}?speed=20`)
     await page.getByRole('heading', { name: 'Ridge gym circuit' }).waitFor()
     const injury = page.getByTestId('injury-cautions')
     await injury.waitFor()
@@ -144,18 +124,18 @@ describe('the session player', () => {
     // The second set started from the load logged for the first, not the prescribed 16 kg.
     expect(sets).toEqual([['squat', 1, 7, 18], ['squat', 2, 8, 18], ['plank', 1, null, null], ['plank', 2, null, null], ['step', null, null, null]])
     for (const entry of stored.entries.filter(item => item.stepId !== 'squat')) expect(entry.seconds).toBeCloseTo(40, 0)
-    const [assignment] = await fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
+    const [assignment] = await running.fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
     expect(assignment!.status).toBe('done')
     await page.screenshot({ path: screenshotPath('session-saved-phone'), fullPage: true })
     await context.close()
   })
 
   it('on a desktop, answers the keyboard and resumes paused after leaving mid-session', async () => {
-    const { id } = await fixtures.assignment(team.teamId, athlete.userId, circuit)
-    const context = await newContext(browser, 'desktop')
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, circuit)
+    const context = await newContext(running.browser, 'desktop')
     await signIn(context)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/session/${id}?speed=10`)
+    await page.goto(`${running.stack.url}/session/${id}?speed=10`)
     await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
     await page.getByRole('button', { name: 'Start session' }).click()
     await page.getByTestId('current-step').waitFor()
@@ -213,11 +193,11 @@ describe('the session player', () => {
       exercises: [],
       steps: durations.map((seconds, index) => ({ id: `b${index}`, type: 'block' as const, kind: index % 2 ? 'recovery' as const : 'work' as const, measure: { by: 'time' as const, seconds } })),
     }
-    const { id } = await fixtures.assignment(team.teamId, athlete.userId, snapshot)
-    const context = await newContext(browser, 'desktop')
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
+    const context = await newContext(running.browser, 'desktop')
     await signIn(context)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/session/${id}`)
+    await page.goto(`${running.stack.url}/session/${id}`)
     await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
     // Note the moment each step's name reaches the page, independently of the player's own record.
     await watchStepChanges(page)
@@ -245,10 +225,10 @@ describe('the session player', () => {
 
 describe('the logbook and profile pages', () => {
   it('edits a logged set on a phone', async () => {
-    const context = await newContext(browser, 'phone')
+    const context = await newContext(running.browser, 'phone')
     await signIn(context)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/logbook`)
+    await page.goto(`${running.stack.url}/logbook`)
     const session = page.getByTestId('logbook-session').filter({ hasText: 'Ridge gym circuit' }).first()
     await session.waitFor()
     await page.screenshot({ path: screenshotPath('logbook-phone'), fullPage: true })
@@ -260,17 +240,17 @@ describe('the logbook and profile pages', () => {
     await reps.fill('6')
     await session.getByRole('button', { name: 'Save changes' }).click()
     await page.getByText(/Saved 1 change/).waitFor()
-    const { data } = await athlete.athlete.get<{ sessions: LogbookSession[] }>('/api/me/logbook')
+    const { data } = await athlete.athlete.get<Logbook>('/api/me/logbook')
     const edited = data.sessions.flatMap(item => item.entries).filter(entry => entry.stepId === 'squat' && entry.set === 1 && entry.reps === 6)
     expect(edited).toHaveLength(1)
     await context.close()
   })
 
   it('names the HRmax estimate and adds an injury note on a desktop', async () => {
-    const context = await newContext(browser, 'desktop')
+    const context = await newContext(running.browser, 'desktop')
     await signIn(context)
     const page = await context.newPage()
-    await page.goto(`${stack.url}/profile`)
+    await page.goto(`${running.stack.url}/profile`)
     await page.getByLabel('Race distance').selectOption({ label: '10K' })
     await page.getByLabel('Finish time').fill('41:30')
     await page.getByLabel('Birth year').fill('1987')

@@ -1,13 +1,13 @@
 import { createHash, randomBytes } from 'node:crypto'
 import { readdirSync } from 'node:fs'
 import { join, relative } from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
 import { ApiClient, uniqueEmail } from '../support/client'
-import { Fixtures } from '../support/fixtures'
 import { linkIn } from '../support/mail-catcher'
-import { root, startStack, type Stack } from '../support/stack'
+import { root } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
 
 // Who may call each route file, checked on the built server with real ids. Every file under
 // server/api and server/routes needs a row here; a new route without one fails the first test.
@@ -219,8 +219,7 @@ describe('access matrix: the table', () => {
 })
 
 describe('access matrix: on the built server', () => {
-  let stack: Stack
-  let fixtures: Fixtures
+  const running = useStack()
   let head: Awaited<ReturnType<typeof registerCoach>>
   let rival: Awaited<ReturnType<typeof registerCoach>>
   let athlete: Awaited<ReturnType<typeof addAthlete>>
@@ -229,60 +228,53 @@ describe('access matrix: on the built server', () => {
   const snapshot: AssignmentSnapshot = { title: 'Ridge hills', category: 'hills', description: '', exercises: [], steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 } }] }
 
   beforeAll(async () => {
-    stack = await startStack()
-    fixtures = new Fixtures(stack)
-    head = await registerCoach(stack)
-    rival = await registerCoach(stack, 'Brackenmoor Harriers')
-    athlete = await addAthlete(stack, head.coach, { name: 'Ffion Aske' })
-    mate = await addAthlete(stack, head.coach, { name: 'Cai Penhallow' })
+    head = await registerCoach(running.stack)
+    rival = await registerCoach(running.stack, 'Brackenmoor Harriers')
+    athlete = await addAthlete(running.stack, head.coach, { name: 'Ffion Aske' })
+    mate = await addAthlete(running.stack, head.coach, { name: 'Cai Penhallow' })
     coachEmail = uniqueEmail('coach')
     expect((await head.coach.post('/api/invites', { email: coachEmail, role: 'coach' })).status).toBe(201)
-    const token = linkIn(await stack.mail.waitFor(coachEmail, /invited you/), /\/join\/[\w-]+/).split('/').pop()!
-    expect((await new ApiClient(stack.url).post(`/api/invites/${token}/accept`, { name: 'Morwen Tay', password: PASSWORD })).status).toBe(201)
-  })
-
-  afterAll(async () => {
-    fixtures?.close()
-    await stack?.stop()
+    const token = linkIn(await running.stack.mail.waitFor(coachEmail, /invited you/), /\/join\/[\w-]+/).split('/').pop()!
+    expect((await new ApiClient(running.stack.url).post(`/api/invites/${token}/accept`, { name: 'Morwen Tay', password: PASSWORD })).status).toBe(201)
   })
 
   async function makeIds(): Promise<Ids> {
     const teamId = head.teamId
-    const exercise = await fixtures.exercise(teamId, { name: `Bounding ${Math.random()}`, category: 'drill' })
-    const routineId = await fixtures.routine(teamId, { title: snapshot.title, category: 'hills', steps: snapshot.steps })
-    const { id: assignmentId } = await fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
-    const [series] = await fixtures.rows<{ id: number }>('insert into assignment_series (team_id, routine_id, start_date, weeks, weekdays) values (?, ?, ?, 1, ?) returning id', [teamId, routineId, today(), '[1]'])
-    await fixtures.rows('update assignments set series_id = ? where id = ?', [series!.id, assignmentId])
-    const noteId = await fixtures.injuryNote(teamId, athlete.userId, 'knee', 'Sore on descents')
-    const [squad] = await fixtures.rows<{ id: number }>('insert into squads (team_id, name) values (?, ?) returning id', [teamId, 'Tuesday group'])
+    const exercise = await running.fixtures.exercise(teamId, { name: `Bounding ${Math.random()}`, category: 'drill' })
+    const routineId = await running.fixtures.routine(teamId, { title: snapshot.title, category: 'hills', steps: snapshot.steps })
+    const { id: assignmentId } = await running.fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
+    const [series] = await running.fixtures.rows<{ id: number }>('insert into assignment_series (team_id, routine_id, start_date, weeks, weekdays) values (?, ?, ?, 1, ?) returning id', [teamId, routineId, today(), '[1]'])
+    await running.fixtures.rows('update assignments set series_id = ? where id = ?', [series!.id, assignmentId])
+    const noteId = await running.fixtures.injuryNote(teamId, athlete.userId, 'knee', 'Sore on descents')
+    const [squad] = await running.fixtures.rows<{ id: number }>('insert into squads (team_id, name) values (?, ?) returning id', [teamId, 'Tuesday group'])
     const inviteToken = randomBytes(32).toString('base64url')
-    const [invite] = await fixtures.rows<{ id: number }>('insert into invites (team_id, email, role, token_hash, invited_by_id, expires_at) values (?, ?, ?, ?, ?, ?) returning id', [teamId, uniqueEmail('pending'), 'athlete', sha256(inviteToken), head.userId, Date.now() + 86_400_000])
+    const [invite] = await running.fixtures.rows<{ id: number }>('insert into invites (team_id, email, role, token_hash, invited_by_id, expires_at) values (?, ?, ?, ?, ?, ?) returning id', [teamId, uniqueEmail('pending'), 'athlete', sha256(inviteToken), head.userId, Date.now() + 86_400_000])
     // The session hangs off an assignment of its own, so deleting `assignmentId` is not refused.
-    const { id: loggedAssignmentId } = await fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
-    const [session] = await fixtures.rows<{ id: number }>('insert into session_logs (team_id, athlete_id, assignment_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', [teamId, athlete.userId, loggedAssignmentId, `s-${Math.random()}`, Date.now(), today()])
-    const [entry] = await fixtures.rows<{ id: number }>('insert into entry_logs (team_id, session_id, athlete_id, idempotency_key, step_id, seconds) values (?, ?, ?, ?, ?, 60) returning id', [teamId, session!.id, athlete.userId, 'matrix-entry-1', 'w'])
-    const [flag] = await fixtures.rows<{ id: number }>('insert into pain_flags (team_id, athlete_id, session_id, pain, area, reason) values (?, ?, ?, 7, ?, ?) returning id', [teamId, athlete.userId, session!.id, 'knee', 'high_pain'])
+    const { id: loggedAssignmentId } = await running.fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
+    const [session] = await running.fixtures.rows<{ id: number }>('insert into session_logs (team_id, athlete_id, assignment_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', [teamId, athlete.userId, loggedAssignmentId, `s-${Math.random()}`, Date.now(), today()])
+    const [entry] = await running.fixtures.rows<{ id: number }>('insert into entry_logs (team_id, session_id, athlete_id, idempotency_key, step_id, seconds) values (?, ?, ?, ?, ?, 60) returning id', [teamId, session!.id, athlete.userId, 'matrix-entry-1', 'w'])
+    const [flag] = await running.fixtures.rows<{ id: number }>('insert into pain_flags (team_id, athlete_id, session_id, pain, area, reason) values (?, ?, ?, 7, ?, ?) returning id', [teamId, athlete.userId, session!.id, 'knee', 'high_pain'])
     const feedToken = randomBytes(32).toString('base64url')
-    await fixtures.rows('insert into calendar_feeds (team_id, user_id, token_hash) values (?, ?, ?)', [teamId, athlete.userId, sha256(feedToken)])
-    const [coach] = await fixtures.rows<{ id: number }>('select id from users where email = ?', [coachEmail])
+    await running.fixtures.rows('insert into calendar_feeds (team_id, user_id, token_hash) values (?, ?, ?)', [teamId, athlete.userId, sha256(feedToken)])
+    const [coach] = await running.fixtures.rows<{ id: number }>('select id from users where email = ?', [coachEmail])
     // A member to remove: a row of their own, so removing them spoils no sign-in.
-    const [leaver] = await fixtures.rows<{ id: number }>('insert into users (email, name, password_hash) values (?, ?, ?) returning id', [uniqueEmail('leaver'), 'Idris Fenwick', 'not-a-hash'])
-    await fixtures.rows('insert into memberships (team_id, user_id, role) values (?, ?, ?)', [teamId, leaver!.id, 'athlete'])
+    const [leaver] = await running.fixtures.rows<{ id: number }>('insert into users (email, name, password_hash) values (?, ?, ?) returning id', [uniqueEmail('leaver'), 'Idris Fenwick', 'not-a-hash'])
+    await running.fixtures.rows('insert into memberships (team_id, user_id, role) values (?, ?, ?)', [teamId, leaver!.id, 'athlete'])
     // A block of the athlete's, with one planned session, so the athlete sees it.
     const blockStart = today()
-    const [block] = await fixtures.rows<{ id: number }>('insert into blocks (team_id, name, start_date, weeks, created_by_id) values (?, ?, ?, 4, ?) returning id', [teamId, 'Spring hills', blockStart, head.userId])
-    const [slot] = await fixtures.rows<{ id: number }>('insert into block_routines (block_id, routine_id, weekday) values (?, ?, 2) returning id', [block!.id, routineId])
-    await fixtures.rows('insert into block_targets (block_id, athlete_id) values (?, ?)', [block!.id, athlete.userId])
-    const { id: blockAssignmentId } = await fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
-    await fixtures.rows('update assignments set block_id = ?, block_week = 1 where id = ?', [block!.id, blockAssignmentId])
+    const [block] = await running.fixtures.rows<{ id: number }>('insert into blocks (team_id, name, start_date, weeks, created_by_id) values (?, ?, ?, 4, ?) returning id', [teamId, 'Spring hills', blockStart, head.userId])
+    const [slot] = await running.fixtures.rows<{ id: number }>('insert into block_routines (block_id, routine_id, weekday) values (?, ?, 2) returning id', [block!.id, routineId])
+    await running.fixtures.rows('insert into block_targets (block_id, athlete_id) values (?, ?)', [block!.id, athlete.userId])
+    const { id: blockAssignmentId } = await running.fixtures.assignment(teamId, athlete.userId, snapshot, { routineId })
+    await running.fixtures.rows('update assignments set block_id = ?, block_week = 1 where id = ?', [block!.id, blockAssignmentId])
     // An exercise with a clip, and a cue on it.
-    const clipExercise = await fixtures.exercise(teamId, { name: `Hill bounds ${Math.random()}`, category: 'drill' })
-    const [clip] = await fixtures.rows<{ id: number }>('insert into media_objects (team_id, exercise_id, key, content_type, size, status, duration_seconds) values (?, ?, ?, ?, 1000, ?, 10) returning id', [teamId, clipExercise.id, `matrix/${Math.random()}.mp4`, 'video/mp4', 'ready'])
-    await fixtures.rows('update exercises set clip_id = ? where id = ?', [clip!.id, clipExercise.id])
-    const [cue] = await fixtures.rows<{ id: number }>('insert into clip_cues (team_id, exercise_id, start_seconds, end_seconds, text) values (?, ?, 1, 2, ?) returning id', [teamId, clipExercise.id, 'Tall through the hips'])
+    const clipExercise = await running.fixtures.exercise(teamId, { name: `Hill bounds ${Math.random()}`, category: 'drill' })
+    const [clip] = await running.fixtures.rows<{ id: number }>('insert into media_objects (team_id, exercise_id, key, content_type, size, status, duration_seconds) values (?, ?, ?, ?, 1000, ?, 10) returning id', [teamId, clipExercise.id, `matrix/${Math.random()}.mp4`, 'video/mp4', 'ready'])
+    await running.fixtures.rows('update exercises set clip_id = ? where id = ?', [clip!.id, clipExercise.id])
+    const [cue] = await running.fixtures.rows<{ id: number }>('insert into clip_cues (team_id, exercise_id, start_seconds, end_seconds, text) values (?, ?, 1, 2, ?) returning id', [teamId, clipExercise.id, 'Tall through the hips'])
     // The athlete's form review of a clip of their own.
-    const [reviewClip] = await fixtures.rows<{ id: number }>('insert into media_objects (team_id, key, content_type, size, status, duration_seconds) values (?, ?, ?, 1000, ?, 10) returning id', [teamId, `reviews/matrix/${Math.random()}.mp4`, 'video/mp4', 'ready'])
-    const [review] = await fixtures.rows<{ id: number }>('insert into form_reviews (team_id, athlete_id, clip_id, question) values (?, ?, ?, ?) returning id', [teamId, athlete.userId, reviewClip!.id, 'Is my knee caving?'])
+    const [reviewClip] = await running.fixtures.rows<{ id: number }>('insert into media_objects (team_id, key, content_type, size, status, duration_seconds) values (?, ?, ?, 1000, ?, 10) returning id', [teamId, `reviews/matrix/${Math.random()}.mp4`, 'video/mp4', 'ready'])
+    const [review] = await running.fixtures.rows<{ id: number }>('insert into form_reviews (team_id, athlete_id, clip_id, question) values (?, ?, ?, ?) returning id', [teamId, athlete.userId, reviewClip!.id, 'Is my knee caving?'])
     return {
       coachId: coach!.id, rivalTeamId: rival.teamId, leaverId: leaver!.id, blockId: block!.id, blockRoutineId: slot!.id, blockStart,
       clipExerciseId: clipExercise.id, cueId: cue!.id, reviewId: review!.id,
@@ -294,12 +286,12 @@ describe('access matrix: on the built server', () => {
   /** A client per caller; signed-in ones are fresh sign-ins, so a row that signs out spoils nothing. */
   async function clientsFor(): Promise<ApiClient[]> {
     const signIn = async (email: string) => {
-      const client = new ApiClient(stack.url)
+      const client = new ApiClient(running.stack.url)
       const response = await client.post('/api/auth/login', { email, password: PASSWORD })
-      if (response.status !== 200) throw new Error(`sign-in of ${email} failed: ${response.status} ${stack.log().slice(-1500)}`)
+      if (response.status !== 200) throw new Error(`sign-in of ${email} failed: ${response.status} ${running.stack.log().slice(-1500)}`)
       return client
     }
-    return [new ApiClient(stack.url), await signIn(athlete.email), await signIn(mate.email), await signIn(coachEmail), await signIn(head.email), await signIn(rival.email)]
+    return [new ApiClient(running.stack.url), await signIn(athlete.email), await signIn(mate.email), await signIn(coachEmail), await signIn(head.email), await signIn(rival.email)]
   }
 
   it('gives each caller what the table says, for every route file', async () => {
@@ -310,7 +302,7 @@ describe('access matrix: on the built server', () => {
       for (let n = 0; n < callers.length; n++) {
         const ids = row.fresh ? await makeIds() : shared
         // Signed out is always a client with no cookie at all.
-        const client = n === 0 ? new ApiClient(stack.url) : row.fresh ? (await clientsFor())[n]! : clients[n]!
+        const client = n === 0 ? new ApiClient(running.stack.url) : row.fresh ? (await clientsFor())[n]! : clients[n]!
         const body = row.body?.(ids)
         const response = await client.request(row.method, row.path(ids), body ?? (row.method === 'GET' || row.method === 'DELETE' ? undefined : {}))
         if (response.status !== row.expect[n]) wrong.push(`${file} as ${callers[n]}: expected ${row.expect[n]}, got ${response.status} ${response.text.slice(0, 160)}`)

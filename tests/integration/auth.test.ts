@@ -1,22 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { ApiClient, uniqueEmail, type FieldError } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
 
-let stack: Stack
-
-beforeAll(async () => {
-  stack = await startStack()
-})
-
-afterAll(async () => {
-  await stack?.stop()
-})
+const running = useStack()
 
 describe('registration and sign-in', () => {
   it('registers a head coach, signs them in, and answers me', async () => {
-    const client = new ApiClient(stack.url)
+    const client = new ApiClient(running.stack.url)
     const email = uniqueEmail('head')
     const registered = await client.post<{ role: string, team: { name: string } }>('/api/auth/register', { name: 'Ilse Marr', email, password: PASSWORD, teamName: 'Brackenmoor Road Runners' })
     expect(registered.status).toBe(201)
@@ -29,20 +21,20 @@ describe('registration and sign-in', () => {
   it('refuses a duplicate e-mail with 409', async () => {
     const email = uniqueEmail('dup')
     const body = { name: 'A Person', email, password: PASSWORD, teamName: 'First Club' }
-    expect((await new ApiClient(stack.url).post('/api/auth/register', body)).status).toBe(201)
-    const again = await new ApiClient(stack.url).post<FieldError>('/api/auth/register', { ...body, email: email.toUpperCase() })
+    expect((await new ApiClient(running.stack.url).post('/api/auth/register', body)).status).toBe(201)
+    const again = await new ApiClient(running.stack.url).post<FieldError>('/api/auth/register', { ...body, email: email.toUpperCase() })
     expect(again.status).toBe(409)
     expect(again.data.data?.fields?.email).toMatch(/already exists/)
   })
 
   it('refuses a weak password with a field message', async () => {
-    const response = await new ApiClient(stack.url).post<FieldError>('/api/auth/register', { name: 'Short', email: uniqueEmail(), password: 'short', teamName: 'Club' })
+    const response = await new ApiClient(running.stack.url).post<FieldError>('/api/auth/register', { name: 'Short', email: uniqueEmail(), password: 'short', teamName: 'Club' })
     expect(response.status).toBe(400)
     expect(response.data.data?.fields?.password).toMatch(/at least 10/)
   })
 
   it('answers malformed, missing and oversized bodies with 4xx, never 500', async () => {
-    const client = new ApiClient(stack.url)
+    const client = new ApiClient(running.stack.url)
     const malformed = await client.request<FieldError>('POST', '/api/auth/register', undefined, { raw: '{"name": "x",' })
     expect(malformed.status).toBe(400)
     const empty = await client.post<FieldError>('/api/auth/register', {})
@@ -59,8 +51,8 @@ describe('registration and sign-in', () => {
   })
 
   it('logs in and out; a wrong password is a generic 401', async () => {
-    const { email } = await registerCoach(stack)
-    const client = new ApiClient(stack.url)
+    const { email } = await registerCoach(running.stack)
+    const client = new ApiClient(running.stack.url)
     const wrong = await client.post<FieldError>('/api/auth/login', { email, password: 'not-the-password' })
     expect(wrong.status).toBe(401)
     const unknown = await client.post<FieldError>('/api/auth/login', { email: uniqueEmail('nobody'), password: 'not-the-password' })
@@ -74,8 +66,8 @@ describe('registration and sign-in', () => {
   })
 
   it('throttles repeated failures for one e-mail with 429', async () => {
-    const { email } = await registerCoach(stack)
-    const client = new ApiClient(stack.url)
+    const { email } = await registerCoach(running.stack)
+    const client = new ApiClient(running.stack.url)
     const statuses: number[] = []
     for (let attempt = 0; attempt < 6; attempt++) {
       statuses.push((await client.post('/api/auth/login', { email, password: 'wrong-password-again' })).status)
@@ -87,14 +79,14 @@ describe('registration and sign-in', () => {
   })
 
   it('answers a signed-out call with 401', async () => {
-    expect((await new ApiClient(stack.url).get('/api/team')).status).toBe(401)
-    expect((await new ApiClient(stack.url).post('/api/invites', { email: uniqueEmail(), role: 'athlete' })).status).toBe(401)
+    expect((await new ApiClient(running.stack.url).get('/api/team')).status).toBe(401)
+    expect((await new ApiClient(running.stack.url).post('/api/invites', { email: uniqueEmail(), role: 'athlete' })).status).toBe(401)
   })
 })
 
 describe('invitations', () => {
   it('invites an athlete by e-mail; the link signs the new athlete in once', async () => {
-    const { coach } = await registerCoach(stack, 'Fellgate Striders')
+    const { coach } = await registerCoach(running.stack, 'Fellgate Striders')
     const squad = await coach.post<{ id: number }>('/api/squads', { name: 'Hill group' })
     const email = uniqueEmail('invitee')
     const invite = await coach.post<{ expiresAt: string }>('/api/invites', { email, role: 'athlete', squadId: squad.data.id })
@@ -103,12 +95,12 @@ describe('invitations', () => {
     expect(days).toBeGreaterThan(6.9)
     expect(days).toBeLessThanOrEqual(7)
 
-    const mail = await stack.mail.waitFor(email, /invited you to Fellgate Striders/)
+    const mail = await running.stack.mail.waitFor(email, /invited you to Fellgate Striders/)
     expect(mail.html).toContain('Accept the invitation')
     const link = linkIn(mail, /http:\/\/127\.0\.0\.1:\d+\/join\/[\w-]+/)
     const token = link.split('/').pop()!
 
-    const visitor = new ApiClient(stack.url)
+    const visitor = new ApiClient(running.stack.url)
     const details = await visitor.get<{ teamName: string, inviterName: string, role: string }>(`/api/invites/${token}`)
     expect(details.data).toMatchObject({ teamName: 'Fellgate Striders', inviterName: 'Morwen Tay', role: 'athlete' })
 
@@ -121,40 +113,40 @@ describe('invitations', () => {
     expect(team.data.members.map(member => member.email)).toContain(email)
     expect(team.data.squads.find(s => s.id === squad.data.id)?.memberIds).toHaveLength(1)
 
-    const reused = await new ApiClient(stack.url).post('/api/invites/' + token + '/accept', { name: 'Someone Else', password: PASSWORD })
+    const reused = await new ApiClient(running.stack.url).post('/api/invites/' + token + '/accept', { name: 'Someone Else', password: PASSWORD })
     expect(reused.status).toBe(410)
-    expect((await new ApiClient(stack.url).get(`/api/invites/${token}`)).status).toBe(410)
+    expect((await new ApiClient(running.stack.url).get(`/api/invites/${token}`)).status).toBe(410)
   })
 
   it('refuses an expired or withdrawn invitation with 410', async () => {
-    const { coach } = await registerCoach(stack)
+    const { coach } = await registerCoach(running.stack)
     const email = uniqueEmail('late')
     const invite = await coach.post<{ id: number }>('/api/invites', { email, role: 'athlete' })
-    const mail = await stack.mail.waitFor(email, /invited you/)
+    const mail = await running.stack.mail.waitFor(email, /invited you/)
     const token = linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!
     const { createClient } = await import('@libsql/client')
-    const db = createClient({ url: stack.databaseUrl })
+    const db = createClient({ url: running.stack.databaseUrl })
     await db.execute({ sql: 'update invites set expires_at = ? where id = ?', args: [Date.now() - 1000, invite.data.id] })
     db.close()
-    expect((await new ApiClient(stack.url).post(`/api/invites/${token}/accept`, { name: 'Too Late', password: PASSWORD })).status).toBe(410)
+    expect((await new ApiClient(running.stack.url).post(`/api/invites/${token}/accept`, { name: 'Too Late', password: PASSWORD })).status).toBe(410)
 
     const other = uniqueEmail('withdrawn')
     const second = await coach.post<{ id: number }>('/api/invites', { email: other, role: 'coach' })
-    const secondMail = await stack.mail.waitFor(other, /invited you/)
+    const secondMail = await running.stack.mail.waitFor(other, /invited you/)
     expect((await coach.post(`/api/team/invites/${second.data.id}/revoke`)).status).toBe(204)
     const secondToken = linkIn(secondMail, /\/join\/[\w-]+/).split('/').pop()!
-    expect((await new ApiClient(stack.url).get(`/api/invites/${secondToken}`)).status).toBe(410)
+    expect((await new ApiClient(running.stack.url).get(`/api/invites/${secondToken}`)).status).toBe(410)
   })
 
   it('keeps athletes out of coach routes (403) and other teams out of ids (404)', async () => {
-    const { coach } = await registerCoach(stack, 'Team One')
-    const { athlete } = await addAthlete(stack, coach)
+    const { coach } = await registerCoach(running.stack, 'Team One')
+    const { athlete } = await addAthlete(running.stack, coach)
     const athleteInvite = await athlete.post('/api/invites', { email: uniqueEmail(), role: 'athlete' })
     expect(athleteInvite.status).toBe(403)
     expect((await athlete.get('/api/team')).status).toBe(403)
 
     const squad = await coach.post<{ id: number }>('/api/squads', { name: 'Mine' })
-    const { coach: rival } = await registerCoach(stack, 'Team Two')
+    const { coach: rival } = await registerCoach(running.stack, 'Team Two')
     expect((await rival.patch(`/api/squads/${squad.data.id}`, { name: 'Taken' })).status).toBe(404)
     expect((await rival.delete(`/api/squads/${squad.data.id}`)).status).toBe(404)
     const invite = await coach.post<{ id: number }>('/api/invites', { email: uniqueEmail(), role: 'athlete' })
@@ -165,11 +157,11 @@ describe('invitations', () => {
 
 describe('password reset', () => {
   it('sends a one-hour, single-use link and changes the password', async () => {
-    const { email } = await registerCoach(stack)
-    const visitor = new ApiClient(stack.url)
+    const { email } = await registerCoach(running.stack)
+    const visitor = new ApiClient(running.stack.url)
     expect((await visitor.post('/api/auth/password-reset', { email })).status).toBe(202)
     expect((await visitor.post('/api/auth/password-reset', { email: uniqueEmail('nobody') })).status).toBe(202)
-    const mail = await stack.mail.waitFor(email, /Reset your Switchback password/)
+    const mail = await running.stack.mail.waitFor(email, /Reset your Switchback password/)
     const token = linkIn(mail, /\/reset\/[\w-]+/).split('/').pop()!
     expect((await visitor.post<FieldError>(`/api/auth/password-reset/${token}`, { password: 'short' })).status).toBe(400)
     expect((await visitor.post(`/api/auth/password-reset/${token}`, { password: 'a-brand-new-password' })).status).toBe(200)

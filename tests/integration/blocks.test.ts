@@ -1,27 +1,15 @@
-import type { Client } from '@libsql/client'
 import ICAL from 'ical.js'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { ApiClient, type FieldError } from '../support/client'
-import { countRows, hillSteps, insertExercise, insertRoutine, openTestDb, outboxSettled } from '../support/planner'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, registerCoach } from '../support/team'
+import { countRows, hillSteps, insertExercise, insertRoutine, outboxSettled } from '../support/planner'
+import { addSquad, registerCoach } from '../support/team'
 import { addDays } from '../../shared/utils/dates'
+import { useStack } from '../support/hooks'
 
 // Progressions, lighter weeks and the taper are common coaching practice (no published source);
 // the numbers below are the rules' arithmetic, worked out by hand beside each check.
 
-let stack: Stack
-let db: Client
-
-beforeAll(async () => {
-  stack = await startStack()
-  db = openTestDb(stack)
-})
-
-afterAll(async () => {
-  db?.close()
-  await stack?.stop()
-})
+const running = useStack()
 
 const utcToday = () => new Date().toISOString().slice(0, 10)
 
@@ -32,17 +20,13 @@ function gymSteps(exerciseId: number) {
 }
 
 async function blockTeam(athleteCount = 2) {
-  const team = await registerCoach(stack, 'Larchford Ridge Runners')
-  const squad = await team.coach.post<{ id: number }>('/api/squads', { name: 'Road group' })
-  const athletes = []
-  for (let index = 0; index < athleteCount; index++) {
-    athletes.push(await addAthlete(stack, team.coach, { squadId: squad.data.id, name: `Road Runner ${index + 1}` }))
-  }
-  const hillId = await insertExercise(db, team.teamId, { name: 'Uphill drive' })
-  const squatId = await insertExercise(db, team.teamId, { name: 'Goblet squat', category: 'strength' })
-  const hills = await insertRoutine(db, team.teamId, { title: 'Ridge road hill reps', steps: hillSteps(hillId, 6) })
-  const gym = await insertRoutine(db, team.teamId, { title: 'Club gym squats', category: 'strength', steps: gymSteps(squatId) })
-  return { ...team, squadId: squad.data.id, athletes, hills, gym }
+  const team = await registerCoach(running.stack, 'Larchford Ridge Runners')
+  const { squadId, athletes } = await addSquad(running.stack, team.coach, { name: 'Road group', count: athleteCount, athleteName: 'Road Runner' })
+  const hillId = await insertExercise(running.db, team.teamId, { name: 'Uphill drive' })
+  const squatId = await insertExercise(running.db, team.teamId, { name: 'Goblet squat', category: 'strength' })
+  const hills = await insertRoutine(running.db, team.teamId, { title: 'Ridge road hill reps', steps: hillSteps(hillId, 6) })
+  const gym = await insertRoutine(running.db, team.teamId, { title: 'Club gym squats', category: 'strength', steps: gymSteps(squatId) })
+  return { ...team, squadId, athletes, hills, gym }
 }
 
 function hillBlock(team: Awaited<ReturnType<typeof blockTeam>>, overrides: Record<string, unknown> = {}) {
@@ -66,7 +50,7 @@ function hillBlock(team: Awaited<ReturnType<typeof blockTeam>>, overrides: Recor
 interface SnapshotRow { id: number, athleteId: number, date: string, week: number, routineId: number, status: string, snapshot: { steps: { id: string, times?: number, sets?: number, target?: { kg?: number } }[], block: { week: number, weeks: number, kind: string, changes: string[], name: string } } }
 
 async function blockSessions(blockId: number, athleteId?: number): Promise<SnapshotRow[]> {
-  const result = await db.execute({
+  const result = await running.db.execute({
     sql: `select id, athlete_id, date, block_week, routine_id, status, snapshot from assignments where block_id = ? ${athleteId ? 'and athlete_id = ?' : ''} order by date, id`,
     args: athleteId ? [blockId, athleteId] : [blockId],
   })
@@ -86,7 +70,7 @@ describe('planning a block', () => {
 
     const created = await team.coach.post<{ id: number }>('/api/blocks', hillBlock(team))
     expect(created.status).toBe(201)
-    expect(await countRows(db, 'assignments', team.teamId)).toBe(0)
+    expect(await countRows(running.db, 'assignments', team.teamId)).toBe(0)
     const planned = await team.coach.post<{ created: number, fromWeek: number, replanned: boolean }>(`/api/blocks/${created.data.id}/plan`)
     expect(planned.status).toBe(200)
     // 2 athletes × 8 weeks × 2 routines.
@@ -110,9 +94,9 @@ describe('planning a block', () => {
     expect(gym.map(kgOf)).toEqual([40, 42.5, 45, 45, 47.5, 50, 52.5, 55])
     expect(gym.map(setsOf)).toEqual([3, 3, 3, 2, 3, 3, 3, 2])
 
-    await outboxSettled(db)
+    await outboxSettled(running.db)
     for (const athlete of team.athletes) {
-      const notices = stack.mail.to(athlete.email).filter(mail => /training block/i.test(mail.subject ?? ''))
+      const notices = running.stack.mail.to(athlete.email).filter(mail => /training block/i.test(mail.subject ?? ''))
       expect(notices).toHaveLength(1)
       expect(notices[0]!.text).toContain('16 sessions')
       expect(notices[0]!.text).toContain('Spring hills')
@@ -148,8 +132,8 @@ describe('planning a block', () => {
     const before = await blockSessions(id, athleteId)
     // Log the first week's session as done.
     const first = before[0]!
-    await db.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, finished_at, day, duration_s) values (?, ?, ?, ?, ?, ?, ?, ?)', args: [team.teamId, first.id, athleteId, 'test-client-1', Date.now(), Date.now(), first.date, 1800] })
-    await db.execute({ sql: 'update assignments set status = \'done\' where id = ?', args: [first.id] })
+    await running.db.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, finished_at, day, duration_s) values (?, ?, ?, ?, ?, ?, ?, ?)', args: [team.teamId, first.id, athleteId, 'test-client-1', Date.now(), Date.now(), first.date, 1800] })
+    await running.db.execute({ sql: 'update assignments set status = \'done\' where id = ?', args: [first.id] })
 
     // Now two rounds a week, capped at 12, on the same routine slot.
     const current = await team.coach.get<{ block: { routines: { id: number }[] } }>(`/api/blocks/${id}`)
@@ -170,10 +154,10 @@ describe('planning a block', () => {
     // Weeks 1–3 as first planned: 6, 7, 8 rounds. Ahead: 6 + 2(n − 1) capped at 12 → week 4 lighter 12 × 0.6 = 7.2 → 7, then 12, 12, 12, taper 12 × 0.6 = 7.2 → 7.
     expect(after.map(roundsOf)).toEqual([6, 7, 8, 7, 12, 12, 12, 7])
     expect(after[0]!.status).toBe('done')
-    const logs = await db.execute({ sql: 'select count(*) as n from session_logs where assignment_id = ?', args: [first.id] })
+    const logs = await running.db.execute({ sql: 'select count(*) as n from session_logs where assignment_id = ?', args: [first.id] })
     expect(Number(logs.rows[0]!.n)).toBe(1)
-    await outboxSettled(db)
-    expect(stack.mail.to(team.athletes[0]!.email).filter(mail => /Updated block/.test(mail.subject ?? ''))).toHaveLength(1)
+    await outboxSettled(running.db)
+    expect(running.stack.mail.to(team.athletes[0]!.email).filter(mail => /Updated block/.test(mail.subject ?? ''))).toHaveLength(1)
 
     // Planned against done: week 1 planned 10 + 6 × 1 + 5 × 1.5 + 10 = 33.5 min, done 30 min.
     const progress = await team.coach.get<{ series: { key: string, weeks: { week: number, plannedMin: number, doneMin: number, doneSessions: number }[] }[] }>(`/api/blocks/${id}/progress`)
@@ -207,18 +191,18 @@ describe('planning is all or nothing', () => {
   it('leaves nothing behind when one session cannot be written', async () => {
     const team = await blockTeam(2)
     const { data: { id } } = await team.coach.post<{ id: number }>('/api/blocks', hillBlock(team))
-    const before = await Promise.all([countRows(db, 'assignments', team.teamId), countRows(db, 'email_outbox', team.teamId)])
+    const before = await Promise.all([countRows(running.db, 'assignments', team.teamId), countRows(running.db, 'email_outbox', team.teamId)])
     // A storage failure on the second athlete's last week, after every other row was written.
-    await db.execute(`create trigger fail_block_week before insert on assignments when new.block_week = 8 and new.athlete_id = ${team.athletes[1]!.userId} begin select raise(abort, 'disk trouble'); end`)
+    await running.db.execute(`create trigger fail_block_week before insert on assignments when new.block_week = 8 and new.athlete_id = ${team.athletes[1]!.userId} begin select raise(abort, 'disk trouble'); end`)
     try {
       const response = await team.coach.post(`/api/blocks/${id}/plan`)
       expect(response.status).toBeGreaterThanOrEqual(500)
       expect(response.text).not.toMatch(/at .*\.mjs:\d+/)
     }
     finally {
-      await db.execute('drop trigger fail_block_week')
+      await running.db.execute('drop trigger fail_block_week')
     }
-    expect(await Promise.all([countRows(db, 'assignments', team.teamId), countRows(db, 'email_outbox', team.teamId)])).toEqual(before)
+    expect(await Promise.all([countRows(running.db, 'assignments', team.teamId), countRows(running.db, 'email_outbox', team.teamId)])).toEqual(before)
     const view = await team.coach.get<{ planning: { plannedAt: string | null } }>(`/api/blocks/${id}`)
     expect(view.data.planning.plannedAt).toBeNull()
     const retry = await team.coach.post<{ created: number }>(`/api/blocks/${id}/plan`)
@@ -249,7 +233,7 @@ describe('block validation', () => {
       expect(response.status, JSON.stringify(change)).toBe(400)
       expect(response.data.data?.fields, JSON.stringify(change)).toHaveProperty([field])
     }
-    expect(await db.execute({ sql: 'select count(*) as n from blocks where team_id = ?', args: [team.teamId] }).then(result => Number(result.rows[0]!.n))).toBe(0)
+    expect(await running.db.execute({ sql: 'select count(*) as n from blocks where team_id = ?', args: [team.teamId] }).then(result => Number(result.rows[0]!.n))).toBe(0)
     const nonsense = await team.coach.request('POST', '/api/blocks', undefined, { raw: '{not json' })
     expect(nonsense.status).toBe(400)
   })
@@ -280,6 +264,6 @@ describe('block scoping', () => {
     await team.coach.post(`/api/blocks/${id}/plan`)
     expect((await team.athletes[0]!.athlete.get(`/api/me/blocks/${id}`)).status).toBe(200)
     expect((await other.athletes[0]!.athlete.get(`/api/me/blocks/${id}`)).status).toBe(404)
-    expect((await new ApiClient(stack.url).get(`/api/blocks/${id}`)).status).toBe(401)
+    expect((await new ApiClient(running.stack.url).get(`/api/blocks/${id}`)).status).toBe(401)
   })
 })

@@ -1,16 +1,13 @@
-import { createClient } from '@libsql/client'
 import { BufferTarget, EncodedPacket, EncodedVideoPacketSource, MovOutputFormat, Mp4OutputFormat, Output, WebMOutputFormat } from 'mediabunny'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import { svgToVp8 } from '../../seeds/clip'
 import { ApiClient, type FieldError } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
+import type { ExerciseView } from '../../shared/schemas/exercise'
+import type { ClipUploadUrl, ClipCue } from '../../types/api'
 
-interface Exercise { id: number, hasClip: boolean, clip: { contentType: string, size: number, durationSeconds: number | null, width: number | null, height: number | null } | null }
-interface Cue { id: number, startSeconds: number, endSeconds: number | null, text: string }
-interface UploadUrl { url: string, key: string }
-
-let stack: Stack
+const running = useStack()
 let coach: ApiClient
 let teamId: number
 
@@ -30,44 +27,31 @@ async function makeClip(container: 'webm' | 'mp4' | 'mov', frames: number, width
   return new Uint8Array(output.target.buffer!)
 }
 
-async function sql(statement: string, args: (string | number)[] = []) {
-  const db = createClient({ url: stack.databaseUrl })
-  try {
-    return (await db.execute({ sql: statement, args })).rows
-  }
-  finally {
-    db.close()
-  }
-}
+const sql = (statement: string, args: (string | number)[] = []) => running.fixtures.rows(statement, args)
 
 let counter = 0
 async function exerciseWithClip(client: ApiClient, body: Uint8Array, contentType = 'video/webm') {
   counter += 1
-  const created = await client.post<Exercise>('/api/exercises', { name: `A-skip ${counter}`, category: 'drill', cues: ['Knee drives up', 'Heel stays down'] })
+  const created = await client.post<ExerciseView>('/api/exercises', { name: `A-skip ${counter}`, category: 'drill', cues: ['Knee drives up', 'Heel stays down'] })
   expect(created.status, created.text).toBe(201)
   const confirmed = await uploadClip(client, created.data.id, body, contentType)
   return confirmed
 }
 
 async function uploadClip(client: ApiClient, exerciseId: number, body: Uint8Array, contentType: string) {
-  const signed = await client.post<UploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
+  const signed = await client.post<ClipUploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
   expect(signed.status, signed.text).toBe(200)
   const put = await fetch(signed.data.url, { method: 'PUT', body: Buffer.from(body), headers: { 'content-type': contentType } })
   expect(put.status).toBe(200)
-  const confirmed = await client.post<Exercise>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
+  const confirmed = await client.post<ExerciseView>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
   expect(confirmed.status, confirmed.text).toBe(200)
   return confirmed.data
 }
 
 beforeAll(async () => {
-  stack = await startStack()
-  const registered = await registerCoach(stack, 'Larchford Ridge Runners')
+  const registered = await registerCoach(running.stack, 'Larchford Ridge Runners')
   coach = registered.coach
   teamId = registered.teamId
-})
-
-afterAll(async () => {
-  await stack?.stop()
 })
 
 describe('clip length and picture size at confirm', () => {
@@ -96,15 +80,15 @@ describe('cues at moments', () => {
   it('creates, moves, edits and deletes cues, and serves them as WebVTT in time order', async () => {
     const exercise = await exerciseWithClip(coach, await makeClip('webm', 40, 160, 120))
     const base = `/api/exercises/${exercise.id}/cues`
-    const late = await coach.post<Cue>(base, { startSeconds: 2.5, text: 'Heel stays down <now> & then --> go' })
+    const late = await coach.post<ClipCue>(base, { startSeconds: 2.5, text: 'Heel stays down <now> & then --> go' })
     expect(late.status, late.text).toBe(201)
-    const early = await coach.post<Cue>(base, { startSeconds: 0.5, endSeconds: 1.5, text: 'Knee drives up here' })
+    const early = await coach.post<ClipCue>(base, { startSeconds: 0.5, endSeconds: 1.5, text: 'Knee drives up here' })
     expect(early.status).toBe(201)
-    expect((await coach.get<Cue[]>(base)).data.map(cue => cue.text)).toEqual(['Knee drives up here', 'Heel stays down <now> & then --> go'])
+    expect((await coach.get<ClipCue[]>(base)).data.map(cue => cue.text)).toEqual(['Knee drives up here', 'Heel stays down <now> & then --> go'])
 
-    const moved = await coach.patch<Cue>(`${base}/${early.data.id}`, { startSeconds: 0.6, endSeconds: 1.6 })
+    const moved = await coach.patch<ClipCue>(`${base}/${early.data.id}`, { startSeconds: 0.6, endSeconds: 1.6 })
     expect(moved.data).toMatchObject({ startSeconds: 0.6, endSeconds: 1.6, text: 'Knee drives up here' })
-    const edited = await coach.patch<Cue>(`${base}/${early.data.id}`, { text: 'Knee up, toes up' })
+    const edited = await coach.patch<ClipCue>(`${base}/${early.data.id}`, { text: 'Knee up, toes up' })
     expect(edited.data).toMatchObject({ startSeconds: 0.6, text: 'Knee up, toes up' })
 
     const track = await coach.get<string>(`/captions/${exercise.id}.vtt`)
@@ -123,7 +107,7 @@ describe('cues at moments', () => {
 
     const removed = await coach.delete(`${base}/${early.data.id}`)
     expect(removed.status).toBe(204)
-    expect((await coach.get<Cue[]>(base)).data).toHaveLength(1)
+    expect((await coach.get<ClipCue[]>(base)).data).toHaveLength(1)
     expect((await coach.delete(`${base}/${early.data.id}`)).status).toBe(404)
   })
 
@@ -146,17 +130,17 @@ describe('cues at moments', () => {
     }
     expect((await coach.post(base, { startSeconds: 1, text: 'x'.repeat(140) })).status).toBe(201)
 
-    const cue = (await coach.get<Cue[]>(base)).data[0]!
+    const cue = (await coach.get<ClipCue[]>(base)).data[0]!
     const badMove = await coach.patch<FieldError>(`${base}/${cue.id}`, { startSeconds: 9 })
     expect(badMove.status).toBe(400)
     expect(badMove.data.data?.fields?.startSeconds).toMatch(/past the end/)
-    expect((await coach.get<Cue[]>(base)).data[0]!.startSeconds).toBe(1)
+    expect((await coach.get<ClipCue[]>(base)).data[0]!.startSeconds).toBe(1)
 
     for (let index = 1; index < 40; index++) expect((await coach.post(base, { startSeconds: index * 0.07, text: `Cue ${index}` })).status).toBe(201)
     const tooMany = await coach.post<FieldError>(base, { startSeconds: 2, text: 'One too many' })
     expect(tooMany.status).toBe(400)
     expect(tooMany.data.data?.fields?.cues).toMatch(/at most 40/)
-    expect((await coach.get<Cue[]>(base)).data).toHaveLength(40)
+    expect((await coach.get<ClipCue[]>(base)).data).toHaveLength(40)
   })
 
   it('keeps the cues when the clip is replaced, and fits them to a shorter one on request', async () => {
@@ -166,9 +150,9 @@ describe('cues at moments', () => {
     await coach.post(base, { startSeconds: 3, endSeconds: 3.8, text: 'Late' })
     const replaced = await uploadClip(coach, exercise.id, await makeClip('webm', 20, 160, 120), 'video/webm')
     expect(replaced.clip!.durationSeconds).toBeCloseTo(2, 1)
-    expect((await coach.get<Cue[]>(base)).data.map(cue => cue.startSeconds)).toEqual([1, 3])
+    expect((await coach.get<ClipCue[]>(base)).data.map(cue => cue.startSeconds)).toEqual([1, 3])
 
-    const clamped = await coach.post<Cue[]>(`${base}/fit`, { mode: 'clamp' })
+    const clamped = await coach.post<ClipCue[]>(`${base}/fit`, { mode: 'clamp' })
     expect(clamped.data.map(cue => [cue.startSeconds, cue.endSeconds])).toEqual([[1, null], [1.9, 2]])
     expect((await coach.post<FieldError>(`${base}/fit`, { mode: 'scale' })).data.data?.fields?.fromSeconds).toBeTruthy()
   })
@@ -177,17 +161,17 @@ describe('cues at moments', () => {
     const exercise = await exerciseWithClip(coach, await makeClip('webm', 20, 160, 120))
     const base = `/api/exercises/${exercise.id}/cues`
     await coach.post(base, { startSeconds: 1, endSeconds: 1.5, text: 'Half-way' })
-    const scaled = await coach.post<Cue[]>(`${base}/fit`, { mode: 'scale', fromSeconds: 4 })
+    const scaled = await coach.post<ClipCue[]>(`${base}/fit`, { mode: 'scale', fromSeconds: 4 })
     expect(scaled.data[0]).toMatchObject({ startSeconds: 0.5, endSeconds: 0.75 })
   })
 
   it('serves the track to the team\'s coaches and to athletes with the exercise in an assignment; 404 for everyone else', async () => {
     const exercise = await exerciseWithClip(coach, await makeClip('webm', 20, 160, 120))
     await coach.post(`/api/exercises/${exercise.id}/cues`, { startSeconds: 0.5, text: 'Tall' })
-    const { athlete, userId } = await addAthlete(stack, coach)
-    const { athlete: teammate } = await addAthlete(stack, coach, { name: 'Ivo Penhale' })
-    const { coach: otherCoach } = await registerCoach(stack, 'Another club')
-    const stranger = new ApiClient(stack.url)
+    const { athlete, userId } = await addAthlete(running.stack, coach)
+    const { athlete: teammate } = await addAthlete(running.stack, coach, { name: 'Ivo Penhale' })
+    const { coach: otherCoach } = await registerCoach(running.stack, 'Another club')
+    const stranger = new ApiClient(running.stack.url)
 
     expect((await athlete.get(`/captions/${exercise.id}.vtt`)).status).toBe(404)
     const [routine] = await sql(`insert into routines (team_id, title, category, steps) values (?, 'Drills', 'drills', '[]') returning id`, [teamId])
@@ -197,7 +181,7 @@ describe('cues at moments', () => {
     const mine = await athlete.get<string>(`/captions/${exercise.id}.vtt`)
     expect(mine.status).toBe(200)
     expect(mine.text).toContain('Tall')
-    expect((await athlete.get<Cue[]>(`/api/exercises/${exercise.id}/cues`)).data).toHaveLength(1)
+    expect((await athlete.get<ClipCue[]>(`/api/exercises/${exercise.id}/cues`)).data).toHaveLength(1)
     expect((await athlete.post(`/api/exercises/${exercise.id}/cues`, { startSeconds: 1, text: 'Mine' })).status).toBe(403)
     expect((await teammate.get(`/captions/${exercise.id}.vtt`)).status).toBe(404)
     expect((await otherCoach.get(`/captions/${exercise.id}.vtt`)).status).toBe(404)

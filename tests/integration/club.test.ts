@@ -1,45 +1,34 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { ApiClient, uniqueEmail, type FieldError } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
-import { countRows, insertRoutine, openTestDb, outboxSettled } from '../support/planner'
-import { startStack, type Stack } from '../support/stack'
+import { countRows, insertRoutine, outboxSettled } from '../support/planner'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
 import { createRoutine, insertHistory, insertPainFlag, openTestDatabase } from '../support/insights-data'
 import { addDays, todayIn } from '../../shared/utils/dates'
+import { useStack } from '../support/hooks'
 
-let stack: Stack
-let db: ReturnType<typeof openTestDb>
-
-beforeAll(async () => {
-  // Plan-change notices wait a moment for more changes; short here so the test sees them.
-  stack = await startStack({ PLAN_NOTICE_DELAY_MS: '600' })
-  db = openTestDb(stack)
-})
-
-afterAll(async () => {
-  db?.close()
-  await stack?.stop()
-})
+// Plan-change notices wait a moment for more changes; short here so the test sees them.
+const running = useStack({ PLAN_NOTICE_DELAY_MS: '600' })
 
 /** Invites someone as a coach of the head coach's team and signs them in through the e-mailed link. */
 async function addCoach(head: ApiClient, email = uniqueEmail('coach'), password = PASSWORD) {
   const invite = await head.post('/api/invites', { email, role: 'coach' })
   expect(invite.status).toBe(201)
-  const mail = await stack.mail.waitFor(email, /invited you/)
+  const mail = await running.stack.mail.waitFor(email, /invited you/)
   const token = linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!
-  const coach = new ApiClient(stack.url)
+  const coach = new ApiClient(running.stack.url)
   const accepted = await coach.post<{ user: { id: number } }>(`/api/invites/${token}/accept`, { name: 'Idris Fenn', password })
   expect(accepted.status).toBe(201)
   return { coach, email, userId: accepted.data.user.id }
 }
 
 async function rows<T>(sql: string, args: (string | number)[] = []) {
-  return (await db.execute({ sql, args })).rows as unknown as T[]
+  return (await running.db.execute({ sql, args })).rows as unknown as T[]
 }
 
 describe('head coach and coach', () => {
   it('refuses every head-coach route to a plain coach with 403, and lets the head coach through', async () => {
-    const { coach: head, teamId } = await registerCoach(stack, 'Larchford Fell Club')
+    const { coach: head, teamId } = await registerCoach(running.stack, 'Larchford Fell Club')
     const { coach, userId: coachId } = await addCoach(head)
     const { coach: second, userId: secondId } = await addCoach(head)
     const pendingCoach = await head.post<{ id: number }>('/api/invites', { email: uniqueEmail('later'), role: 'coach' })
@@ -81,10 +70,10 @@ describe('head coach and coach', () => {
   })
 
   it('keeps one head coach, and deletes the team only after its name is typed', async () => {
-    const { coach: head, userId: headId, teamId } = await registerCoach(stack, 'Brackenmoor Striders')
+    const { coach: head, userId: headId, teamId } = await registerCoach(running.stack, 'Brackenmoor Striders')
     const demote = await head.patch<FieldError>(`/api/team/members/${headId}`, { role: 'coach' })
     expect(demote.status).toBe(409)
-    const { userId: athleteId } = await addAthlete(stack, head)
+    const { userId: athleteId } = await addAthlete(running.stack, head)
     expect((await head.patch<FieldError>(`/api/team/members/${athleteId}`, { role: 'coach' })).status).toBe(400)
     const leave = await head.delete(`/api/me/teams/${teamId}`)
     expect(leave.status).toBe(409)
@@ -92,7 +81,7 @@ describe('head coach and coach', () => {
     const wrong = await head.request<FieldError>('DELETE', '/api/team', { confirmName: 'Brackenmoor' })
     expect(wrong.status).toBe(400)
     expect(wrong.data.data?.fields?.confirmName).toMatch(/exactly/)
-    const routineId = await insertRoutine(db, teamId, { title: 'Hill reps' })
+    const routineId = await insertRoutine(running.db, teamId, { title: 'Hill reps' })
     expect((await head.post('/api/assignments', { routineId, athleteIds: [athleteId], dates: ['2030-01-07'] })).status).toBe(201)
     const deleted = await head.request('DELETE', '/api/team', { confirmName: 'Brackenmoor Striders' })
     expect(deleted.status).toBe(204)
@@ -104,20 +93,20 @@ describe('head coach and coach', () => {
 
 describe('more than one team', () => {
   it('lets one account join a second team, switch between them, see only the chosen team, and leave', async () => {
-    const a = await registerCoach(stack, 'Larchford Ridge Runners')
-    const b = await registerCoach(stack, 'Combe Valley Harriers')
-    const { athlete, email, userId } = await addAthlete(stack, a.coach, { name: 'Cai Penhallow' })
-    const routineA = await insertRoutine(db, a.teamId, { title: 'Ridge hill reps' })
-    const routineB = await insertRoutine(db, b.teamId, { title: 'Valley strides' })
+    const a = await registerCoach(running.stack, 'Larchford Ridge Runners')
+    const b = await registerCoach(running.stack, 'Combe Valley Harriers')
+    const { athlete, email, userId } = await addAthlete(running.stack, a.coach, { name: 'Cai Penhallow' })
+    const routineA = await insertRoutine(running.db, a.teamId, { title: 'Ridge hill reps' })
+    const routineB = await insertRoutine(running.db, b.teamId, { title: 'Valley strides' })
     expect((await a.coach.post('/api/assignments', { routineId: routineA, athleteIds: [userId], dates: ['2030-02-04'] })).status).toBe(201)
 
     // An invitation to the same e-mail joins the existing account to the second team.
     expect((await b.coach.post('/api/invites', { email, role: 'athlete' })).status).toBe(201)
-    const mail = await stack.mail.waitFor(email, /Combe Valley/)
+    const mail = await running.stack.mail.waitFor(email, /Combe Valley/)
     const token = linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!
-    const wrongPassword = await new ApiClient(stack.url).post<FieldError>(`/api/invites/${token}/accept`, { name: 'Cai', password: 'not-the-password' })
+    const wrongPassword = await new ApiClient(running.stack.url).post<FieldError>(`/api/invites/${token}/accept`, { name: 'Cai', password: 'not-the-password' })
     expect(wrongPassword.status).toBe(401)
-    const joined = await new ApiClient(stack.url).post<{ user: { id: number } }>(`/api/invites/${token}/accept`, { name: 'Cai Penhallow', password: PASSWORD })
+    const joined = await new ApiClient(running.stack.url).post<{ user: { id: number } }>(`/api/invites/${token}/accept`, { name: 'Cai Penhallow', password: PASSWORD })
     expect(joined.status).toBe(201)
     expect(joined.data.user.id).toBe(userId)
     expect(await rows('select 1 from users where email = ?', [email])).toHaveLength(1)
@@ -138,7 +127,7 @@ describe('more than one team', () => {
     expect(inB.data.assignments.map(item => item.title)).toEqual(['Valley strides'])
 
     // Not a member: the same 404 as a team that does not exist; bad input is a 400.
-    const outsider = await registerCoach(stack, 'Elsewhere AC')
+    const outsider = await registerCoach(running.stack, 'Elsewhere AC')
     expect((await athlete.post('/api/me/team', { teamId: outsider.teamId })).status).toBe(404)
     expect((await athlete.post('/api/me/team', { teamId: 'two' })).status).toBe(400)
 
@@ -153,18 +142,18 @@ describe('more than one team', () => {
     expect(left.status).toBe(200)
     expect(left.data.team?.id).toBe(a.teamId)
     expect((await athlete.get<{ team: { id: number } }>('/api/me')).data.team.id).toBe(a.teamId)
-    expect(await countRows(db, 'assignments', b.teamId)).toBe(1)
+    expect(await countRows(running.db, 'assignments', b.teamId)).toBe(1)
     const membersB = await b.coach.get<{ members: { id: number }[] }>('/api/team')
     expect(membersB.data.members.map(member => member.id)).not.toContain(userId)
   })
 
   it('lets a coach of two teams switch, scoping the team page to the chosen one', async () => {
-    const a = await registerCoach(stack, 'North Ridge Runners')
-    const b = await registerCoach(stack, 'South Ridge Runners')
+    const a = await registerCoach(running.stack, 'North Ridge Runners')
+    const b = await registerCoach(running.stack, 'South Ridge Runners')
     const password = 'shared-coach-password'
     const { coach, email } = await addCoach(a.coach, uniqueEmail('twoteams'), password)
     expect((await b.coach.post('/api/invites', { email, role: 'coach' })).status).toBe(201)
-    const mail = await stack.mail.waitFor(email, /South Ridge/)
+    const mail = await running.stack.mail.waitFor(email, /South Ridge/)
     const token = linkIn(mail, /\/join\/[\w-]+/).split('/').pop()!
     expect((await coach.post(`/api/invites/${token}/accept`, { name: 'Idris Fenn', password })).status).toBe(201)
     // Accepting signs in to the new team.
@@ -174,14 +163,14 @@ describe('more than one team', () => {
   })
 
   it('keeps a removed athlete\'s sessions with the team, and clears their notes when asked', async () => {
-    const { coach, teamId } = await registerCoach(stack, 'Anonymous Hill Club')
-    const { userId } = await addAthlete(stack, coach)
-    const routineId = await insertRoutine(db, teamId, { title: 'Stairs' })
+    const { coach, teamId } = await registerCoach(running.stack, 'Anonymous Hill Club')
+    const { userId } = await addAthlete(running.stack, coach)
+    const routineId = await insertRoutine(running.db, teamId, { title: 'Stairs' })
     await coach.post('/api/assignments', { routineId, athleteIds: [userId], dates: ['2030-03-02'] })
-    await db.execute({ sql: 'insert into injury_notes (team_id, athlete_id, body_area, note) values (?, ?, ?, ?)', args: [teamId, userId, 'knee', 'Sore after downhill'] })
+    await running.db.execute({ sql: 'insert into injury_notes (team_id, athlete_id, body_area, note) values (?, ?, ?, ?)', args: [teamId, userId, 'knee', 'Sore after downhill'] })
     const removed = await coach.delete(`/api/team/members/${userId}?anonymise=true`)
     expect(removed.status).toBe(204)
-    expect(await countRows(db, 'assignments', teamId)).toBe(1)
+    expect(await countRows(running.db, 'assignments', teamId)).toBe(1)
     expect(await rows('select 1 from injury_notes where team_id = ? and athlete_id = ?', [teamId, userId])).toHaveLength(0)
     expect((await coach.delete(`/api/team/members/${userId}?anonymise=maybe`)).status).toBe(400)
   })
@@ -189,12 +178,12 @@ describe('more than one team', () => {
 
 describe('an anonymised former athlete', () => {
   it('shows under a stable "Former athlete N" wherever the team sees their history, and their name and e-mail nowhere', async () => {
-    const { coach, teamId } = await registerCoach(stack, 'Anonymised Ridge Club')
-    const wren = await addAthlete(stack, coach, { name: 'Wren Calder' })
-    const oriel = await addAthlete(stack, coach, { name: 'Oriel Banks' })
-    const piran = await addAthlete(stack, coach, { name: 'Piran Hale' })
+    const { coach, teamId } = await registerCoach(running.stack, 'Anonymised Ridge Club')
+    const wren = await addAthlete(running.stack, coach, { name: 'Wren Calder' })
+    const oriel = await addAthlete(running.stack, coach, { name: 'Oriel Banks' })
+    const piran = await addAthlete(running.stack, coach, { name: 'Piran Hale' })
     const today = todayIn('UTC')
-    const history = await openTestDatabase(stack.databaseUrl)
+    const history = await openTestDatabase(running.stack.databaseUrl)
     const routine = await createRoutine(history, teamId, 'Quarry hill reps')
     const sessions = new Map<number, { id: number }[]>()
     for (const [person, word] of [[wren, 'heather'], [oriel, 'bracken'], [piran, 'gorse']] as const) {
@@ -208,8 +197,8 @@ describe('an anonymised former athlete', () => {
     }
     history.$client.close()
     // A form-review clip Wren sent before leaving: it shows her, so anonymising deletes it.
-    const clip = await db.execute({ sql: 'insert into media_objects (team_id, key, content_type, size, status) values (?, ?, \'video/webm\', 10, \'ready\') returning id', args: [teamId, `teams/${teamId}/reviews/${wren.userId}/left.webm`] })
-    await db.execute({ sql: 'insert into form_reviews (team_id, athlete_id, clip_id, question) values (?, ?, ?, ?)', args: [teamId, wren.userId, Number(clip.rows[0]!.id), 'Is my knee drifting in?'] })
+    const clip = await running.db.execute({ sql: 'insert into media_objects (team_id, key, content_type, size, status) values (?, ?, \'video/webm\', 10, \'ready\') returning id', args: [teamId, `teams/${teamId}/reviews/${wren.userId}/left.webm`] })
+    await running.db.execute({ sql: 'insert into form_reviews (team_id, athlete_id, clip_id, question) values (?, ?, ?, ?)', args: [teamId, wren.userId, Number(clip.rows[0]!.id), 'Is my knee drifting in?'] })
 
     // Wren is removed and anonymised by the coach; Oriel leaves and asks for it herself; Piran is removed by name.
     expect((await coach.delete(`/api/team/members/${wren.userId}?anonymise=true`)).status).toBe(204)
@@ -259,7 +248,7 @@ describe('an anonymised former athlete', () => {
     expect(await rows('select status from media_objects where id = ?', [Number(clip.rows[0]!.id)])).toEqual([expect.objectContaining({ status: 'deleted' })])
 
     // The label is stable: another athlete anonymised later takes the next number.
-    const sorrel = await addAthlete(stack, coach, { name: 'Sorrel Vane' })
+    const sorrel = await addAthlete(running.stack, coach, { name: 'Sorrel Vane' })
     expect((await coach.delete(`/api/team/members/${sorrel.userId}?anonymise=true`)).status).toBe(204)
     const [label] = await rows<{ number: number }>('select number from anonymised_members where team_id = ? and user_id = ?', [teamId, sorrel.userId])
     expect(Number(label!.number)).toBe(3)
@@ -272,25 +261,25 @@ describe('an anonymised former athlete', () => {
     expect(acknowledged.status).toBe(200)
     expect(await rows('select 1 from email_outbox where "to" = ? and template = \'pain_flag_reply\'', [wren.email])).toHaveLength(0)
     // Someone who comes back is a member again, shown by name; their number stays theirs.
-    const invitations = () => stack.mail.to(wren.email).filter(mail => /invited you/.test(mail.subject ?? ''))
+    const invitations = () => running.stack.mail.to(wren.email).filter(mail => /invited you/.test(mail.subject ?? ''))
     const before = invitations().length
     expect((await coach.post('/api/invites', { email: wren.email, role: 'athlete' })).status).toBe(201)
     await expect.poll(() => invitations().length, { timeout: 10_000 }).toBeGreaterThan(before)
     const back = linkIn(invitations().at(-1)!, /\/join\/[\w-]+/).split('/').pop()!
-    expect((await new ApiClient(stack.url).post(`/api/invites/${back}/accept`, { name: 'Wren Calder', password: PASSWORD })).status).toBe(201)
+    expect((await new ApiClient(running.stack.url).post(`/api/invites/${back}/accept`, { name: 'Wren Calder', password: PASSWORD })).status).toBe(201)
     const rejoined = await coach.get<{ athleteId: number, athleteName: string }[]>('/api/pain-flags?status=all')
     expect(labelOf(rejoined.data, wren.userId)).toEqual(['Wren Calder'])
     expect(labelOf(rejoined.data, oriel.userId)).toEqual(['Former athlete 2'])
     expect(await rows('select number from anonymised_members where team_id = ? and user_id = ?', [teamId, wren.userId])).toEqual([expect.objectContaining({ number: 1 })])
     // Another team never sees the label table of this one.
-    const other = await registerCoach(stack, 'Unrelated Harriers')
+    const other = await registerCoach(running.stack, 'Unrelated Harriers')
     expect((await other.coach.get<unknown[]>('/api/pain-flags?status=all')).data).toEqual([])
   })
 })
 
 describe('the starter set', () => {
   it('copies the library with clips and the starter routines into the new team only, once', async () => {
-    const head = new ApiClient(stack.url)
+    const head = new ApiClient(running.stack.url)
     const registered = await head.post<{ team: { id: number }, starterSet: { exercisesAdded: number, routinesAdded: number, clipsCopied: number, clipsMissing: number } }>('/api/auth/register', {
       name: 'Morwen Tay', email: uniqueEmail('starter'), password: PASSWORD, teamName: 'Starter Club', starterSet: true,
     })
@@ -327,7 +316,7 @@ describe('the starter set', () => {
     expect(used.every(id => ids.has(id))).toBe(true)
 
     // Another team, and a team that chose to start empty, have none of it.
-    const empty = await registerCoach(stack, 'Empty Club')
+    const empty = await registerCoach(running.stack, 'Empty Club')
     expect(await rows('select 1 from exercises where team_id = ?', [empty.teamId])).toHaveLength(0)
     // Adding it later gives that team copies of its own (its own rows and clips under its own prefix),
     // and leaves the first team's as they were.
@@ -338,17 +327,17 @@ describe('the starter set', () => {
     const [firstAgain] = await rows<{ n: number }>('select count(*) as n from exercises where team_id = ?', [teamId])
     expect(Number(firstAgain!.n)).toBe(first.exercisesAdded)
     // A plain athlete cannot add it.
-    const { athlete } = await addAthlete(stack, head)
+    const { athlete } = await addAthlete(running.stack, head)
     expect((await athlete.post('/api/team/starter-set')).status).toBe(403)
   })
 })
 
 describe('planning the same thing twice', () => {
   it('skips a duplicate routine/athlete/day unless confirmed, and an idempotency key makes a double click harmless', async () => {
-    const { coach, teamId } = await registerCoach(stack, 'Duplicate Checkers')
-    const { userId: first } = await addAthlete(stack, coach)
-    const { userId: second } = await addAthlete(stack, coach, { name: 'Oren Blythe' })
-    const routineId = await insertRoutine(db, teamId, { title: 'Hill reps' })
+    const { coach, teamId } = await registerCoach(running.stack, 'Duplicate Checkers')
+    const { userId: first } = await addAthlete(running.stack, coach)
+    const { userId: second } = await addAthlete(running.stack, coach, { name: 'Oren Blythe' })
+    const routineId = await insertRoutine(running.db, teamId, { title: 'Hill reps' })
     type Batch = { created: number, ids: number[], skipped: { athleteId: number, date: string }[], repeated: boolean }
 
     const planned = await coach.post<Batch>('/api/assignments', { routineId, athleteIds: [first], dates: ['2030-04-01', '2030-04-03'] })
@@ -357,36 +346,36 @@ describe('planning the same thing twice', () => {
     expect(again.status).toBe(201)
     expect(again.data.created).toBe(2)
     expect(again.data.skipped.map(item => [item.athleteId, item.date])).toEqual([[first, '2030-04-01'], [first, '2030-04-03']])
-    expect(await countRows(db, 'assignments', teamId)).toBe(4)
+    expect(await countRows(running.db, 'assignments', teamId)).toBe(4)
     const confirmed = await coach.post<Batch>('/api/assignments', { routineId, athleteIds: [first], dates: ['2030-04-01'], confirmDuplicates: true })
     expect(confirmed.data.created).toBe(1)
-    expect(await countRows(db, 'assignments', teamId)).toBe(5)
+    expect(await countRows(running.db, 'assignments', teamId)).toBe(5)
 
     const body = { routineId, athleteIds: [second], dates: ['2030-04-08'], idempotencyKey: 'batch-0a1b2c3d' }
     const [one, two] = await Promise.all([coach.post<Batch>('/api/assignments', body), coach.post<Batch>('/api/assignments', body)])
     expect([one.status, two.status]).toContain(201)
     // The other one either waited and got the first answer back, or met the claimed key: never a 5xx.
     expect([one.status, two.status].every(status => [200, 201, 409].includes(status))).toBe(true)
-    expect(await countRows(db, 'assignments', teamId)).toBe(6)
+    expect(await countRows(running.db, 'assignments', teamId)).toBe(6)
     const three = await coach.post<Batch>('/api/assignments', body)
     expect(three.data.repeated).toBe(true)
     expect(three.data.ids).toEqual((one.status === 201 ? one : two).data.ids)
-    expect(await countRows(db, 'assignments', teamId)).toBe(6)
+    expect(await countRows(running.db, 'assignments', teamId)).toBe(6)
     expect((await coach.post<FieldError>('/api/assignments', { ...body, idempotencyKey: 'no spaces allowed' })).status).toBe(400)
-    await outboxSettled(db)
+    await outboxSettled(running.db)
   })
 })
 
 describe('notices of moved and removed sessions', () => {
   it('gathers one athlete\'s changes of a day in one e-mail, tells both athletes of a hand-over, and respects the opt-out', async () => {
-    const { coach, teamId } = await registerCoach(stack, 'Notice Harriers')
-    const tamsin = await addAthlete(stack, coach, { name: 'Tamsin Rook' })
-    const oren = await addAthlete(stack, coach, { name: 'Oren Blythe' })
-    const quiet = await addAthlete(stack, coach, { name: 'Wren Calder' })
+    const { coach, teamId } = await registerCoach(running.stack, 'Notice Harriers')
+    const tamsin = await addAthlete(running.stack, coach, { name: 'Tamsin Rook' })
+    const oren = await addAthlete(running.stack, coach, { name: 'Oren Blythe' })
+    const quiet = await addAthlete(running.stack, coach, { name: 'Wren Calder' })
     expect((await quiet.athlete.patch('/api/me/notifications', { notifyByEmail: false })).status).toBe(200)
-    const routineId = await insertRoutine(db, teamId, { title: 'Ridge hill reps' })
+    const routineId = await insertRoutine(running.db, teamId, { title: 'Ridge hill reps' })
     const plan = await coach.post<{ ids: number[] }>('/api/assignments', { routineId, athleteIds: [tamsin.userId, quiet.userId], dates: ['2030-05-06', '2030-05-08', '2030-05-10'] })
-    await outboxSettled(db)
+    await outboxSettled(running.db)
     const [ids] = [await rows<{ id: number, athlete_id: number, date: string }>('select id, athlete_id, date from assignments where team_id = ? order by athlete_id, date', [teamId])]
     const tamsins = ids.filter(row => Number(row.athlete_id) === tamsin.userId)
     const quiets = ids.filter(row => Number(row.athlete_id) === quiet.userId)
@@ -397,26 +386,26 @@ describe('notices of moved and removed sessions', () => {
     expect((await coach.patch(`/api/assignments/${tamsins[2]!.id}`, { athleteId: oren.userId })).status).toBe(200)
     expect((await coach.patch(`/api/assignments/${quiets[0]!.id}`, { date: '2030-05-07' })).status).toBe(200)
     expect((await coach.delete(`/api/assignments/${quiets[1]!.id}`)).status).toBe(204)
-    const outsider = await registerCoach(stack, 'Not Notice Harriers')
-    const stranger = await addAthlete(stack, outsider.coach)
+    const outsider = await registerCoach(running.stack, 'Not Notice Harriers')
+    const stranger = await addAthlete(running.stack, outsider.coach)
     expect((await coach.patch<FieldError>(`/api/assignments/${quiets[2]!.id}`, { athleteId: stranger.userId })).status).toBe(400)
 
-    const mail = await stack.mail.waitFor(tamsin.email, /Your plan changed/)
+    const mail = await running.stack.mail.waitFor(tamsin.email, /Your plan changed/)
     expect(mail.subject).toBe('Your plan changed (3 changes)')
     expect(mail.text).toMatch(/"Ridge hill reps" moved from .*6.* to .*7/)
     expect(mail.text).toMatch(/removed/)
-    const toOren = await stack.mail.waitFor(oren.email, /Your plan changed/)
+    const toOren = await running.stack.mail.waitFor(oren.email, /Your plan changed/)
     expect(toOren.text).toMatch(/added on/)
-    await outboxSettled(db)
-    expect(stack.mail.to(tamsin.email).filter(message => /plan changed/.test(message.subject ?? ''))).toHaveLength(1)
-    expect(stack.mail.to(quiet.email).filter(message => /plan changed/.test(message.subject ?? ''))).toHaveLength(0)
+    await outboxSettled(running.db)
+    expect(running.stack.mail.to(tamsin.email).filter(message => /plan changed/.test(message.subject ?? ''))).toHaveLength(1)
+    expect(running.stack.mail.to(quiet.email).filter(message => /plan changed/.test(message.subject ?? ''))).toHaveLength(0)
   })
 })
 
 describe('an athlete\'s first visit', () => {
   it('saves the answers given, records a skip, and refuses bad input field by field', async () => {
-    const { coach } = await registerCoach(stack, 'Welcome Wanderers')
-    const { athlete } = await addAthlete(stack, coach)
+    const { coach } = await registerCoach(running.stack, 'Welcome Wanderers')
+    const { athlete } = await addAthlete(running.stack, coach)
     expect((await athlete.get<{ user: { welcomed: boolean } }>('/api/me')).data.user.welcomed).toBe(false)
     const badZone = await athlete.post<FieldError>('/api/me/welcome', { timezone: 'Nowhere/Town' })
     expect(badZone.status).toBe(400)
@@ -436,7 +425,7 @@ describe('an athlete\'s first visit', () => {
     expect(profile.data.profile).toMatchObject({ benchmarkDistanceM: 10000, units: 'mi' })
     expect(profile.data.injuryNotes).toEqual([expect.objectContaining({ bodyArea: 'achilles', status: 'active' })])
 
-    const other = await addAthlete(stack, coach, { name: 'Juno Halloway' })
+    const other = await addAthlete(running.stack, coach, { name: 'Juno Halloway' })
     expect((await other.athlete.post('/api/me/welcome', { skip: true, units: 'mi' })).status).toBe(200)
     expect((await other.athlete.get<{ user: { welcomed: boolean } }>('/api/me')).data.user.welcomed).toBe(true)
     expect((await other.athlete.get<{ profile: { units: string } }>('/api/me/profile')).data.profile.units).toBe('km')
@@ -445,14 +434,14 @@ describe('an athlete\'s first visit', () => {
 
 describe('the coach\'s home', () => {
   it('answers in one request with flags newest first, yesterday and today per squad, the week ahead, ratios outside 0.8–1.3, invitations and the checklist', async () => {
-    const { coach, teamId } = await registerCoach(stack, 'Home Page Harriers')
+    const { coach, teamId } = await registerCoach(running.stack, 'Home Page Harriers')
     const squad = await coach.post<{ id: number }>('/api/squads', { name: 'Road squad' })
-    const steady = await addAthlete(stack, coach, { name: 'Cai Penhallow', squadId: squad.data.id })
-    const spiking = await addAthlete(stack, coach, { name: 'Ffion Aske' })
+    const steady = await addAthlete(running.stack, coach, { name: 'Cai Penhallow', squadId: squad.data.id })
+    const spiking = await addAthlete(running.stack, coach, { name: 'Ffion Aske' })
     const pendingEmail = uniqueEmail('pending')
     await coach.post('/api/invites', { email: pendingEmail, role: 'athlete' })
     const today = todayIn('UTC')
-    const history = await openTestDatabase(stack.databaseUrl)
+    const history = await openTestDatabase(running.stack.databaseUrl)
     const routine = await createRoutine(history, teamId)
     // Cai: the same load every day for five weeks (ratio 1.0), trained today, missed yesterday.
     const caiDays = Array.from({ length: 35 }, (_, daysAgo) => ({ daysAgo, done: daysAgo !== 1, load: 100 }))
@@ -494,7 +483,7 @@ describe('the coach\'s home', () => {
     expect((await coach.post<FieldError>('/api/coach/checklist', { dismissed: 'yes' })).status).toBe(400)
     expect((await steady.athlete.get('/api/coach/home')).status).toBe(403)
     // Another team's home shows none of it.
-    const other = await registerCoach(stack, 'Quiet Club')
+    const other = await registerCoach(running.stack, 'Quiet Club')
     const empty = await other.coach.get<Home>('/api/coach/home')
     expect(empty.data.painFlags).toEqual([])
     expect(empty.data.squads).toEqual([])

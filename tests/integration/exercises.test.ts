@@ -1,39 +1,22 @@
 import { randomBytes } from 'node:crypto'
-import { createClient } from '@libsql/client'
 import { HeadObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { makeDemoClip } from '../../seeds/clip'
 import { ApiClient, type FieldError } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
+import type { ExerciseView } from '../../shared/schemas/exercise'
+import type { ClipPlayback, ClipUploadUrl, ExerciseList } from '../../types/api'
 
-interface Exercise {
-  id: number
-  name: string
-  category: string
-  summary: string
-  cues: string[]
-  equipment: string[]
-  cautions: { text: string, bodyAreas: string[] }[]
-  hasClip: boolean
-  clip: { contentType: string, size: number } | null
-  hasPoster: boolean
-  archivedAt: string | null
-}
-interface ExerciseList { items: Exercise[], total: number, page: number, pageSize: number, equipmentOptions: string[] }
-interface UploadUrl { url: string, key: string, expiresAt: string }
-interface Playback { url: string, expiresAt: string, contentType: string, size: number, posterUrl: string | null }
-
-let stack: Stack
+const running = useStack()
 let s3: S3Client
 let clip: Buffer
 let coach: ApiClient
 let teamId: number
 
 beforeAll(async () => {
-  stack = await startStack()
   s3 = new S3Client({
-    endpoint: stack.s3.endpoint,
+    endpoint: running.stack.s3.endpoint,
     region: 'us-east-1',
     credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
     forcePathStyle: true,
@@ -41,19 +24,18 @@ beforeAll(async () => {
     responseChecksumValidation: 'WHEN_REQUIRED',
   })
   clip = await makeDemoClip({ seconds: 1, framesPerSecond: 8 })
-  const registered = await registerCoach(stack, 'Larchford Ridge Runners')
+  const registered = await registerCoach(running.stack, 'Larchford Ridge Runners')
   coach = registered.coach
   teamId = registered.teamId
 })
 
 afterAll(async () => {
   s3?.destroy()
-  await stack?.stop()
 })
 
 async function stored(key: string) {
   try {
-    const head = await s3.send(new HeadObjectCommand({ Bucket: stack.s3.bucket, Key: key }))
+    const head = await s3.send(new HeadObjectCommand({ Bucket: running.stack.s3.bucket, Key: key }))
     return { contentType: head.ContentType, size: head.ContentLength }
   }
   catch (error) {
@@ -62,20 +44,12 @@ async function stored(key: string) {
   }
 }
 
-async function sql(statement: string, args: (string | number)[] = []) {
-  const db = createClient({ url: stack.databaseUrl })
-  try {
-    return (await db.execute({ sql: statement, args })).rows
-  }
-  finally {
-    db.close()
-  }
-}
+const sql = (statement: string, args: (string | number)[] = []) => running.fixtures.rows(statement, args)
 
 let counter = 0
 async function createExercise(client: ApiClient, overrides: Record<string, unknown> = {}) {
   counter += 1
-  const response = await client.post<Exercise>('/api/exercises', {
+  const response = await client.post<ExerciseView>('/api/exercises', {
     name: `Hill sprint ${counter}`,
     category: 'hill',
     summary: 'Short, fast efforts up a steep grade.',
@@ -90,11 +64,11 @@ async function createExercise(client: ApiClient, overrides: Record<string, unkno
 
 /** The whole browser-side flow: ask for a URL, PUT the bytes straight to the store, confirm. */
 async function uploadClip(client: ApiClient, exerciseId: number, body: Uint8Array = clip, contentType = 'video/webm') {
-  const signed = await client.post<UploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
+  const signed = await client.post<ClipUploadUrl>(`/api/exercises/${exerciseId}/clip/upload-url`, { contentType, size: body.byteLength })
   expect(signed.status, signed.text).toBe(200)
   const put = await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': contentType } })
   expect(put.status, await put.clone().text()).toBe(200)
-  const confirmed = await client.post<Exercise & FieldError>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
+  const confirmed = await client.post<ExerciseView & FieldError>(`/api/exercises/${exerciseId}/clip/confirm`, { key: signed.data.key })
   return { key: signed.data.key, confirmed }
 }
 
@@ -102,7 +76,7 @@ describe('exercise records', () => {
   it('creates an exercise with ordered cues, equipment and cautions and reads it back', async () => {
     const created = await createExercise(coach, { name: 'Bulgarian split squat', category: 'strength', cues: ['Front shin upright', 'Lower straight down', 'Push through the whole foot'], equipment: ['Bench', 'Dumbbells'] })
     expect(created).toMatchObject({ name: 'Bulgarian split squat', category: 'strength', hasClip: false, clip: null, archivedAt: null })
-    const read = await coach.get<Exercise>(`/api/exercises/${created.id}`)
+    const read = await coach.get<ExerciseView>(`/api/exercises/${created.id}`)
     expect(read.status).toBe(200)
     expect(read.data.cues).toEqual(['Front shin upright', 'Lower straight down', 'Push through the whole foot'])
     expect(read.data.cautions).toEqual([{ text: 'Walk back down gently', bodyAreas: ['knee', 'shin'] }])
@@ -138,44 +112,44 @@ describe('exercise records', () => {
     expect(again.data.data?.fields?.name).toMatch(/already has/)
     const rename = await coach.patch<FieldError>(`/api/exercises/${(await createExercise(coach)).id}`, { name: 'A-Skips' })
     expect(rename.status).toBe(409)
-    expect((await coach.patch<Exercise>(`/api/exercises/${first.id}`, { name: 'A-skips' })).status).toBe(200)
+    expect((await coach.patch<ExerciseView>(`/api/exercises/${first.id}`, { name: 'A-skips' })).status).toBe(200)
   })
 
   it('edits fields one at a time and refuses an empty or invalid change', async () => {
     const exercise = await createExercise(coach)
-    const edited = await coach.patch<Exercise>(`/api/exercises/${exercise.id}`, { cues: ['Stay tall', 'Drive the knees', 'Quick arms'], category: 'stride' })
+    const edited = await coach.patch<ExerciseView>(`/api/exercises/${exercise.id}`, { cues: ['Stay tall', 'Drive the knees', 'Quick arms'], category: 'stride' })
     expect(edited.status).toBe(200)
     expect(edited.data).toMatchObject({ name: exercise.name, category: 'stride', cues: ['Stay tall', 'Drive the knees', 'Quick arms'], summary: exercise.summary })
     expect((await coach.patch<FieldError>(`/api/exercises/${exercise.id}`, {})).status).toBe(400)
     const bad = await coach.patch<FieldError>(`/api/exercises/${exercise.id}`, { cautions: [{ text: 'Careful', bodyAreas: ['wrist'] }] })
     expect(bad.status).toBe(400)
     expect(bad.data.data?.fields?.['cautions.0.bodyAreas.0']).toBeTruthy()
-    expect((await coach.get<Exercise>(`/api/exercises/${exercise.id}`)).data.cautions).toEqual(exercise.cautions)
+    expect((await coach.get<ExerciseView>(`/api/exercises/${exercise.id}`)).data.cautions).toEqual(exercise.cautions)
     expect((await coach.get<FieldError>('/api/exercises/abc')).status).toBe(400)
     expect((await coach.get('/api/exercises/999999')).status).toBe(404)
   })
 
   it('archives and restores: archived exercises leave the default list but stay readable', async () => {
     const exercise = await createExercise(coach, { name: 'Old drill to archive' })
-    const archived = await coach.post<Exercise>(`/api/exercises/${exercise.id}/archive`)
+    const archived = await coach.post<ExerciseView>(`/api/exercises/${exercise.id}/archive`)
     expect(archived.status).toBe(200)
     expect(archived.data.archivedAt).not.toBeNull()
     const active = await coach.get<ExerciseList>('/api/exercises?q=old%20drill')
     expect(active.data.items.map(item => item.id)).not.toContain(exercise.id)
     const archivedList = await coach.get<ExerciseList>('/api/exercises?status=archived&q=old%20drill')
     expect(archivedList.data.items.map(item => item.id)).toContain(exercise.id)
-    expect((await coach.get<Exercise>(`/api/exercises/${exercise.id}`)).status).toBe(200)
-    const restored = await coach.post<Exercise>(`/api/exercises/${exercise.id}/archive`, { archived: false })
+    expect((await coach.get<ExerciseView>(`/api/exercises/${exercise.id}`)).status).toBe(200)
+    const restored = await coach.post<ExerciseView>(`/api/exercises/${exercise.id}/archive`, { archived: false })
     expect(restored.data.archivedAt).toBeNull()
   })
 
   it('duplicates an exercise under a free name, copying its clip to the copy\'s own key', async () => {
     const exercise = await createExercise(coach, { name: 'Glute bridge' })
     const { key } = await uploadClip(coach, exercise.id)
-    const copy = await coach.post<Exercise & { mediaCopied: boolean }>(`/api/exercises/${exercise.id}/duplicate`)
+    const copy = await coach.post<ExerciseView & { mediaCopied: boolean }>(`/api/exercises/${exercise.id}/duplicate`)
     expect(copy.status).toBe(201)
     expect(copy.data).toMatchObject({ name: 'Glute bridge (copy)', category: 'hill', cues: exercise.cues, cautions: exercise.cautions, hasClip: true, mediaCopied: true })
-    const second = await coach.post<Exercise>(`/api/exercises/${exercise.id}/duplicate`)
+    const second = await coach.post<ExerciseView>(`/api/exercises/${exercise.id}/duplicate`)
     expect(second.data.name).toBe('Glute bridge (copy 2)')
 
     const [row] = await sql('select m.key from exercises e join media_objects m on m.id = e.clip_id where e.id = ?', [copy.data.id])
@@ -193,7 +167,7 @@ describe('exercise records', () => {
 describe('browsing the library', () => {
   let listCoach: ApiClient
   beforeAll(async () => {
-    listCoach = (await registerCoach(stack, 'Quenmere Striders')).coach
+    listCoach = (await registerCoach(running.stack, 'Quenmere Striders')).coach
     const specs = [
       { name: 'Romanian deadlift', category: 'strength', equipment: ['Barbell'] },
       { name: 'Step-ups', category: 'strength', equipment: ['Box', 'Dumbbells'] },
@@ -248,7 +222,7 @@ describe('browsing the library', () => {
 describe('demo clips in object storage', () => {
   it('uploads straight to the store with a presigned PUT, verifies it and plays it back with ranges', async () => {
     const exercise = await createExercise(coach)
-    const signed = await coach.post<UploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
+    const signed = await coach.post<ClipUploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
     expect(signed.status).toBe(200)
     expect(signed.data.key).toMatch(new RegExp(`^teams/${teamId}/exercises/${exercise.id}/[0-9a-f]{24}\\.webm$`))
     const expiresIn = new Date(signed.data.expiresAt).getTime() - Date.now()
@@ -264,7 +238,7 @@ describe('demo clips in object storage', () => {
 
     const put = await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(clip), headers: { 'content-type': 'video/webm' } })
     expect(put.status).toBe(200)
-    const confirmed = await coach.post<Exercise>(`/api/exercises/${exercise.id}/clip/confirm`, { key: signed.data.key })
+    const confirmed = await coach.post<ExerciseView>(`/api/exercises/${exercise.id}/clip/confirm`, { key: signed.data.key })
     expect(confirmed.status, confirmed.text).toBe(200)
     expect(confirmed.data).toMatchObject({ hasClip: true, clip: { contentType: 'video/webm', size: clip.byteLength } })
     expect(await stored(signed.data.key)).toMatchObject({ contentType: 'video/webm', size: clip.byteLength })
@@ -274,7 +248,7 @@ describe('demo clips in object storage', () => {
     const again = await coach.post<FieldError>(`/api/exercises/${exercise.id}/clip/confirm`, { key: signed.data.key })
     expect(again.status).toBe(400)
 
-    const playback = await coach.get<Playback>(`/api/exercises/${exercise.id}/clip`)
+    const playback = await coach.get<ClipPlayback>(`/api/exercises/${exercise.id}/clip`)
     expect(playback.status).toBe(200)
     expect(playback.data.contentType).toBe('video/webm')
     const whole = Buffer.from(await (await fetch(playback.data.url)).arrayBuffer())
@@ -310,7 +284,7 @@ describe('demo clips in object storage', () => {
     // so this shows the second line of defence: confirm compares the stored object and discards it.
     const exercise = await createExercise(coach)
     for (const [body, contentType, message] of [[clip, 'video/mp4', /video\/mp4, not video\/webm/], [Buffer.concat([clip, clip]), 'video/webm', /bytes, not the announced/]] as const) {
-      const signed = await coach.post<UploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
+      const signed = await coach.post<ClipUploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
       const put = await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': contentType } })
       await put.arrayBuffer()
       const confirmed = await coach.post<FieldError>(`/api/exercises/${exercise.id}/clip/confirm`, { key: signed.data.key })
@@ -318,7 +292,7 @@ describe('demo clips in object storage', () => {
       expect(confirmed.data.data?.fields?.key).toMatch(message)
       expect(await stored(signed.data.key)).toBeNull()
     }
-    expect((await coach.get<Exercise>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(false)
+    expect((await coach.get<ExerciseView>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(false)
   })
 
   it('refuses to confirm a key outside the exercise\'s own prefix, or one never handed out', async () => {
@@ -334,7 +308,7 @@ describe('demo clips in object storage', () => {
     expect(invented.status).toBe(400)
     expect(invented.data.data?.fields?.key).toMatch(/No upload was started/)
     expect((await coach.post<FieldError>(`/api/exercises/${exercise.id}/clip/confirm`, {})).data.data?.fields?.key).toBeTruthy()
-    expect((await coach.get<Exercise>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(false)
+    expect((await coach.get<ExerciseView>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(false)
     expect(await stored(otherUpload.key)).not.toBeNull()
   })
 
@@ -350,13 +324,13 @@ describe('demo clips in object storage', () => {
     expect(media!.status).toBe('deleted')
 
     // An object written under the key by other means with another type and size.
-    const signed = await coach.post<UploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
-    await s3.send(new PutObjectCommand({ Bucket: stack.s3.bucket, Key: signed.data.key, Body: 'not a clip', ContentType: 'text/plain' }))
+    const signed = await coach.post<ClipUploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: clip.byteLength })
+    await s3.send(new PutObjectCommand({ Bucket: running.stack.s3.bucket, Key: signed.data.key, Body: 'not a clip', ContentType: 'text/plain' }))
     const mismatch = await coach.post<FieldError>(`/api/exercises/${exercise.id}/clip/confirm`, { key: signed.data.key })
     expect(mismatch.status).toBe(400)
     expect(mismatch.data.data?.fields?.key).toMatch(/text\/plain, not video\/webm/)
     expect(await stored(signed.data.key)).toBeNull()
-    expect((await coach.get<Exercise>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(false)
+    expect((await coach.get<ExerciseView>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(false)
     expect((await coach.get(`/api/exercises/${exercise.id}/clip`)).status).toBe(404)
   })
 
@@ -370,13 +344,13 @@ describe('demo clips in object storage', () => {
     expect(await stored(second.key)).not.toBeNull()
 
     const poster = await (await import('sharp')).default({ create: { width: 32, height: 18, channels: 3, background: '#1f4d3a' } }).png().toBuffer()
-    const posterUpload = await coach.post<UploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'image/png', size: poster.byteLength, purpose: 'poster' })
+    const posterUpload = await coach.post<ClipUploadUrl>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'image/png', size: poster.byteLength, purpose: 'poster' })
     expect((await fetch(posterUpload.data.url, { method: 'PUT', body: poster, headers: { 'content-type': 'image/png' } })).status).toBe(200)
-    const withPoster = await coach.post<Exercise>(`/api/exercises/${exercise.id}/clip/confirm`, { key: posterUpload.data.key })
+    const withPoster = await coach.post<ExerciseView>(`/api/exercises/${exercise.id}/clip/confirm`, { key: posterUpload.data.key })
     expect(withPoster.data).toMatchObject({ hasClip: true, hasPoster: true })
-    expect((await coach.get<Playback>(`/api/exercises/${exercise.id}/clip`)).data.posterUrl).toContain(posterUpload.data.key.split('/').pop())
+    expect((await coach.get<ClipPlayback>(`/api/exercises/${exercise.id}/clip`)).data.posterUrl).toContain(posterUpload.data.key.split('/').pop())
 
-    const removed = await coach.delete<Exercise>(`/api/exercises/${exercise.id}/clip`)
+    const removed = await coach.delete<ExerciseView>(`/api/exercises/${exercise.id}/clip`)
     expect(removed.status).toBe(200)
     expect(removed.data).toMatchObject({ hasClip: false, hasPoster: false, clip: null })
     expect(await stored(second.key)).toBeNull()
@@ -388,9 +362,9 @@ describe('demo clips in object storage', () => {
 
 describe('who may see what', () => {
   let otherCoach: ApiClient
-  let exercise: Exercise
+  let exercise: ExerciseView
   beforeAll(async () => {
-    otherCoach = (await registerCoach(stack, 'Varrow Edge Club')).coach
+    otherCoach = (await registerCoach(running.stack, 'Varrow Edge Club')).coach
     exercise = await createExercise(coach, { name: 'Single-leg calf raise', category: 'strength' })
     await uploadClip(coach, exercise.id)
   })
@@ -410,19 +384,19 @@ describe('who may see what', () => {
     ]
     for (const response of await Promise.all(calls)) expect(response.status, response.text).toBe(404)
     expect((await otherCoach.get<ExerciseList>('/api/exercises?q=calf')).data.total).toBe(0)
-    const still = await coach.get<Exercise>(base)
+    const still = await coach.get<ExerciseView>(base)
     expect(still.data).toMatchObject({ name: 'Single-leg calf raise', hasClip: true, archivedAt: null })
   })
 
   it('signed-out callers get 401', async () => {
-    const anonymous = new ApiClient(stack.url)
+    const anonymous = new ApiClient(running.stack.url)
     expect((await anonymous.get('/api/exercises')).status).toBe(401)
     expect((await anonymous.get(`/api/exercises/${exercise.id}/clip`)).status).toBe(401)
   })
 
   it('an athlete reads only exercises in their own assignments, with their clips, and changes nothing', async () => {
-    const { athlete, userId } = await addAthlete(stack, coach)
-    const { userId: teammateId } = await addAthlete(stack, coach, { name: 'Cai Penhallow' })
+    const { athlete, userId } = await addAthlete(running.stack, coach)
+    const { userId: teammateId } = await addAthlete(running.stack, coach, { name: 'Cai Penhallow' })
     const listed = await createExercise(coach, { name: 'Listed in the snapshot' })
     const inSteps = await createExercise(coach, { name: 'Named only by a step' })
     const teammates = await createExercise(coach, { name: 'In a teammate\'s plan' })
@@ -451,7 +425,7 @@ describe('who may see what', () => {
     const list = await athlete.get<ExerciseList>('/api/exercises')
     expect(list.data.items.map(item => item.id).sort()).toEqual([exercise.id, listed.id, inSteps.id].sort())
 
-    const playback = await athlete.get<Playback>(`/api/exercises/${exercise.id}/clip`)
+    const playback = await athlete.get<ClipPlayback>(`/api/exercises/${exercise.id}/clip`)
     expect(playback.status).toBe(200)
     expect((await fetch(playback.data.url, { headers: { range: 'bytes=0-3' } })).status).toBe(206)
     expect((await athlete.get(`/api/exercises/${listed.id}/clip`)).status).toBe(404)
@@ -463,13 +437,13 @@ describe('who may see what', () => {
     expect((await athlete.post(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: 10 })).status).toBe(403)
     expect((await athlete.delete(`/api/exercises/${exercise.id}/clip`)).status).toBe(403)
     expect((await athlete.get(`/api/exercises/${exercise.id}/usage`)).status).toBe(403)
-    expect((await coach.get<Exercise>(`/api/exercises/${exercise.id}`)).data).toMatchObject({ name: 'Single-leg calf raise', hasClip: true })
+    expect((await coach.get<ExerciseView>(`/api/exercises/${exercise.id}`)).data).toMatchObject({ name: 'Single-leg calf raise', hasClip: true })
   })
 })
 
 describe('where an exercise is used', () => {
   it('lists live routines through routine_exercises and upcoming assignments from snapshots or those routines', async () => {
-    const { userId } = await addAthlete(stack, coach, { name: 'Ffion Aske' })
+    const { userId } = await addAthlete(running.stack, coach, { name: 'Ffion Aske' })
     const exercise = await createExercise(coach, { name: 'Hill sprints for usage' })
     const unused = await createExercise(coach, { name: 'Nobody uses this' })
     const routine = async (title: string, archived = false) => {
@@ -510,8 +484,8 @@ describe('with the object store down', () => {
   it('upload routes answer 503 with a clear message while the rest of the library keeps working', async () => {
     const exercise = await createExercise(coach, { name: 'Before the outage' })
     await uploadClip(coach, exercise.id)
-    const stopStore = stack.s3.stop
-    stack.s3.stop = async () => {}
+    const stopStore = running.stack.s3.stop
+    running.stack.s3.stop = async () => {}
     await stopStore()
 
     const upload = await coach.post<FieldError>(`/api/exercises/${exercise.id}/clip/upload-url`, { contentType: 'video/webm', size: 1000 })
@@ -519,13 +493,13 @@ describe('with the object store down', () => {
     expect(upload.data.message).toMatch(/clip store cannot be reached/)
     const removal = await coach.delete<FieldError>(`/api/exercises/${exercise.id}/clip`)
     expect(removal.status).toBe(503)
-    expect((await coach.get<Exercise>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(true)
+    expect((await coach.get<ExerciseView>(`/api/exercises/${exercise.id}`)).data.hasClip).toBe(true)
 
-    const created = await coach.post<Exercise>('/api/exercises', { name: 'During the outage', category: 'drill' })
+    const created = await coach.post<ExerciseView>('/api/exercises', { name: 'During the outage', category: 'drill' })
     expect(created.status).toBe(201)
     expect((await coach.patch(`/api/exercises/${created.data.id}`, { summary: 'Still editable' })).status).toBe(200)
     expect((await coach.get<ExerciseList>('/api/exercises?q=outage')).data.total).toBe(2)
-    const copy = await coach.post<Exercise & { mediaCopied: boolean }>(`/api/exercises/${exercise.id}/duplicate`)
+    const copy = await coach.post<ExerciseView & { mediaCopied: boolean }>(`/api/exercises/${exercise.id}/duplicate`)
     expect(copy.status).toBe(201)
     expect(copy.data).toMatchObject({ hasClip: false, mediaCopied: false })
   })

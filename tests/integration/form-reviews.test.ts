@@ -1,53 +1,30 @@
-import { createClient } from '@libsql/client'
 import { HeadObjectCommand, S3Client } from '@aws-sdk/client-s3'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { makeDemoClip } from '../../seeds/clip'
 import type { ApiClient, FieldError } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, addCoach, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
+import type { FormReview, ReviewUploadUrl } from '../../types/api'
 
-interface Review {
-  id: number
-  athleteId: number
-  status: 'open' | 'answered'
-  question: string
-  durationSeconds: number | null
-  clip: { url: string }
-  reply: { url: string } | null
-  exercise: { id: number, name: string, cues: string[] } | null
-  comments: { atSeconds: number, text: string, authorName: string | null }[]
-}
-interface Upload { url: string, key: string }
-
-let stack: Stack
+const running = useStack({ MEDIA_SWEEP_INTERVAL_MS: '300' })
 let s3: S3Client
 let clip: Buffer
 
 beforeAll(async () => {
-  stack = await startStack({ MEDIA_SWEEP_INTERVAL_MS: '300' })
-  s3 = new S3Client({ endpoint: stack.s3.endpoint, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } })
+  s3 = new S3Client({ endpoint: running.stack.s3.endpoint, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } })
   clip = await makeDemoClip({ seconds: 3, framesPerSecond: 8 })
 })
 
 afterAll(async () => {
   s3?.destroy()
-  await stack?.stop()
 })
 
-const exists = (key: string) => s3.send(new HeadObjectCommand({ Bucket: stack.s3.bucket, Key: key })).then(() => true, () => false)
+const exists = (key: string) => s3.send(new HeadObjectCommand({ Bucket: running.stack.s3.bucket, Key: key })).then(() => true, () => false)
 
-async function sql(statement: string, args: (string | number)[] = []) {
-  const db = createClient({ url: stack.databaseUrl })
-  try {
-    return (await db.execute({ sql: statement, args })).rows
-  }
-  finally {
-    db.close()
-  }
-}
+const sql = (statement: string, args: (string | number)[] = []) => running.fixtures.rows(statement, args)
 
 async function put(client: ApiClient, path: string, body: Buffer) {
-  const signed = await client.post<Upload>(path, { contentType: 'video/webm', size: body.byteLength })
+  const signed = await client.post<ReviewUploadUrl>(path, { contentType: 'video/webm', size: body.byteLength })
   expect(signed.status, signed.text).toBe(200)
   expect((await fetch(signed.data.url, { method: 'PUT', body: new Uint8Array(body), headers: { 'content-type': 'video/webm' } })).status).toBe(200)
   return signed.data.key
@@ -55,15 +32,15 @@ async function put(client: ApiClient, path: string, body: Buffer) {
 
 async function sendForReview(athlete: ApiClient, question = 'Is my knee drive high enough?') {
   const key = await put(athlete, '/api/reviews/upload-url', clip)
-  const created = await athlete.post<Review>('/api/reviews', { key, question })
+  const created = await athlete.post<FormReview>('/api/reviews', { key, question })
   expect(created.status, created.text).toBe(201)
   return { key, review: created.data }
 }
 
 describe('form review', () => {
   it('an athlete sends a clip; the coach comments at moments, links an exercise, replies with a clip and the athlete is e-mailed', async () => {
-    const { coach } = await registerCoach(stack, 'Larchford Ridge Runners')
-    const athlete = await addAthlete(stack, coach, { name: 'Ffion Aske' })
+    const { coach } = await registerCoach(running.stack, 'Larchford Ridge Runners')
+    const athlete = await addAthlete(running.stack, coach, { name: 'Ffion Aske' })
     const { key, review } = await sendForReview(athlete.athlete)
     expect(key).toMatch(new RegExp(`/reviews/${athlete.userId}/`))
     expect(review).toMatchObject({ status: 'open', question: 'Is my knee drive high enough?', comments: [], reply: null })
@@ -75,7 +52,7 @@ describe('form review', () => {
 
     const base = `/api/reviews/${review.id}`
     expect((await coach.post(`${base}/comments`, { atSeconds: 2, text: 'Knee higher here' })).status).toBe(201)
-    const commented = await coach.post<Review>(`${base}/comments`, { atSeconds: 0.5, text: 'Good tall start' })
+    const commented = await coach.post<FormReview>(`${base}/comments`, { atSeconds: 0.5, text: 'Good tall start' })
     expect(commented.data.comments.map(comment => [comment.atSeconds, comment.text])).toEqual([[0.5, 'Good tall start'], [2, 'Knee higher here']])
 
     for (const [body, field, message] of [
@@ -91,28 +68,28 @@ describe('form review', () => {
     expect((await athlete.athlete.post(`${base}/comments`, { atSeconds: 1, text: 'Me' })).status).toBe(403)
 
     const exercise = await coach.post<{ id: number }>('/api/exercises', { name: 'A-skips', category: 'drill', cues: ['Knee drives up'] })
-    const linked = await coach.patch<Review>(base, { exerciseId: exercise.data.id })
+    const linked = await coach.patch<FormReview>(base, { exerciseId: exercise.data.id })
     expect(linked.data.exercise).toMatchObject({ name: 'A-skips', cues: ['Knee drives up'] })
 
     const replyKey = await put(coach, `${base}/reply-url`, clip)
-    const answered = await coach.post<Review>(`${base}/answer`, { replyKey })
+    const answered = await coach.post<FormReview>(`${base}/answer`, { replyKey })
     expect(answered.status, answered.text).toBe(200)
     expect(answered.data.status).toBe('answered')
     expect(answered.data.reply?.url).toBeTruthy()
-    const mail = await stack.mail.waitFor(athlete.email, /answered your form review/)
+    const mail = await running.stack.mail.waitFor(athlete.email, /answered your form review/)
     expect(mail.text).toContain(`/reviews/${review.id}`)
 
-    const seen = await athlete.athlete.get<Review>(base)
+    const seen = await athlete.athlete.get<FormReview>(base)
     expect(seen.data.comments.map(comment => comment.text)).toEqual(['Good tall start', 'Knee higher here'])
     expect(seen.data.reply).not.toBeNull()
     expect((await fetch(seen.data.clip.url)).status).toBe(200)
   })
 
   it('keeps each clip to its athlete and the team\'s coaches (404 otherwise), and refuses what is not a short video', async () => {
-    const { coach } = await registerCoach(stack)
-    const athlete = await addAthlete(stack, coach)
-    const teammate = await addAthlete(stack, coach, { name: 'Ivo Penhale' })
-    const { coach: otherCoach } = await registerCoach(stack, 'Another club')
+    const { coach } = await registerCoach(running.stack)
+    const athlete = await addAthlete(running.stack, coach)
+    const teammate = await addAthlete(running.stack, coach, { name: 'Ivo Penhale' })
+    const { coach: otherCoach } = await registerCoach(running.stack, 'Another club')
     const { review } = await sendForReview(athlete.athlete)
 
     expect((await teammate.athlete.get(`/api/reviews/${review.id}`)).status).toBe(404)
@@ -141,8 +118,8 @@ describe('form review', () => {
   })
 
   it('an athlete deletes their clip and the object leaves the store; the sweep removes clips past the team\'s retention', async () => {
-    const { coach, teamId } = await registerCoach(stack)
-    const athlete = await addAthlete(stack, coach)
+    const { coach, teamId } = await registerCoach(running.stack)
+    const athlete = await addAthlete(running.stack, coach)
     const { key, review } = await sendForReview(athlete.athlete)
     expect(await exists(key)).toBe(true)
     expect((await coach.delete(`/api/reviews/${review.id}`)).status).toBe(403)
@@ -163,14 +140,14 @@ describe('form review', () => {
   })
 
   it('counts the clips waiting for the team\'s coaches (coaches only, one team), and the queue narrows to a squad, newest first', async () => {
-    const { coach } = await registerCoach(stack)
-    const plainCoach = (await addCoach(stack, coach)).coach
-    const { coach: otherCoach } = await registerCoach(stack, 'Another club')
+    const { coach } = await registerCoach(running.stack)
+    const plainCoach = (await addCoach(running.stack, coach)).coach
+    const { coach: otherCoach } = await registerCoach(running.stack, 'Another club')
     const road = await coach.post<{ id: number }>('/api/squads', { name: 'Road' })
     const trail = await coach.post<{ id: number }>('/api/squads', { name: 'Trail' })
     expect([road.status, trail.status]).toEqual([201, 201])
-    const roadRunner = await addAthlete(stack, coach, { name: 'Cai Penhallow', squadId: road.data.id })
-    const trailRunner = await addAthlete(stack, coach, { name: 'Wren Calder', squadId: trail.data.id })
+    const roadRunner = await addAthlete(running.stack, coach, { name: 'Cai Penhallow', squadId: road.data.id })
+    const trailRunner = await addAthlete(running.stack, coach, { name: 'Wren Calder', squadId: trail.data.id })
     const count = async (client: ApiClient) => (await client.get<{ open: number }>('/api/reviews/open-count')).data.open
 
     expect(await count(coach)).toBe(0)
@@ -201,9 +178,9 @@ describe('form review', () => {
   })
 
   it('lets the head coach set how long clips are kept (a whole number of days, 7 to 730), and no one else', async () => {
-    const { coach: head, teamId } = await registerCoach(stack)
-    const { coach } = await addCoach(stack, head)
-    const athlete = await addAthlete(stack, head)
+    const { coach: head, teamId } = await registerCoach(running.stack)
+    const { coach } = await addCoach(running.stack, head)
+    const athlete = await addAthlete(running.stack, head)
     type Team = { team: { reviewRetentionDays: number } }
     expect((await head.get<Team>('/api/team')).data.team.reviewRetentionDays).toBe(180)
 

@@ -2,11 +2,11 @@ import { readdirSync } from 'node:fs'
 import { join, relative } from 'node:path'
 import type { Client } from '@libsql/client'
 import fc from 'fast-check'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient } from '../support/client'
-import { Fixtures } from '../support/fixtures'
-import { root, startStack, type Stack } from '../support/stack'
+import { root } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
 
 // Generated bad input against every POST/PUT/PATCH route file: wrong types, missing and extra
 // fields, huge and deeply nested values, NaN/Infinity, NUL bytes, injection strings and __proto__
@@ -87,33 +87,25 @@ const badId = fc.oneof(
 )
 
 describe('generated bad input', () => {
-  let stack: Stack
-  let fixtures: Fixtures
+  const running = useStack()
   let clients: Record<Target['caller'], ApiClient>
   let goodIds: Record<string, string>
   let tables: { name: string, updatedAt: boolean }[]
 
   beforeAll(async () => {
-    stack = await startStack()
-    fixtures = new Fixtures(stack)
-    const team = await registerCoach(stack)
-    const athlete = await addAthlete(stack, team.coach)
-    clients = { coach: team.coach, athlete: athlete.athlete, visitor: new ApiClient(stack.url) }
-    const exercise = await fixtures.exercise(team.teamId, { name: 'Skips', category: 'drill' })
-    const routineId = await fixtures.routine(team.teamId, { title: 'Strides', category: 'drills', steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 20 } }] })
+    const team = await registerCoach(running.stack)
+    const athlete = await addAthlete(running.stack, team.coach)
+    clients = { coach: team.coach, athlete: athlete.athlete, visitor: new ApiClient(running.stack.url) }
+    const exercise = await running.fixtures.exercise(team.teamId, { name: 'Skips', category: 'drill' })
+    const routineId = await running.fixtures.routine(team.teamId, { title: 'Strides', category: 'drills', steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 20 } }] })
     goodIds = { exercises: String(exercise.id), routines: String(routineId), athletes: String(athlete.userId) }
-    const names = await fixtures.rows<{ name: string }>('select name from sqlite_master where type = \'table\' and name not like \'sqlite_%\'')
+    const names = await running.fixtures.rows<{ name: string }>('select name from sqlite_master where type = \'table\' and name not like \'sqlite_%\'')
     tables = []
     for (const { name } of names) {
       if (auditTables.has(name)) continue
-      const columns = await fixtures.rows<{ name: string }>(`pragma table_info("${name}")`)
+      const columns = await running.fixtures.rows<{ name: string }>(`pragma table_info("${name}")`)
       tables.push({ name, updatedAt: !countOnlyTables.has(name) && columns.some(column => column.name === 'updated_at') })
     }
-  })
-
-  afterAll(async () => {
-    fixtures?.close()
-    await stack?.stop()
   })
 
   it(`answers ${RUNS} malformed bodies and path ids across every write route without a 5xx, changing nothing when it refuses`, async () => {
@@ -135,13 +127,13 @@ describe('generated bad input', () => {
           const resource = /\/api\/(\w+)\//.exec(target.template)?.[1] ?? ''
           return goodIds[resource] ?? '999999'
         })
-        const before = await fingerprint(fixtures.client, tables)
+        const before = await fingerprint(running.fixtures.client, tables)
         const response = await clients[target.caller].request(target.method, path, undefined, { raw: body })
         expect(response.status, `${target.method} ${path} ${body.slice(0, 200)} → ${response.text.slice(0, 300)}`).toBeLessThan(500)
         statuses[response.status] = (statuses[response.status] ?? 0) + 1
         if (response.status === 401 && target.caller !== 'visitor') signedOutMidway++
         if (response.status >= 400) {
-          expect(await fingerprint(fixtures.client, tables), `${target.method} ${path} was refused with ${response.status} but changed the database`).toBe(before)
+          expect(await fingerprint(running.fixtures.client, tables), `${target.method} ${path} was refused with ${response.status} but changed the database`).toBe(before)
         }
       },
     ), { numRuns: RUNS, seed: Number(process.env.FUZZ_SEED) || undefined })

@@ -7,15 +7,15 @@ import { addDays, startOfWeek, todayIn } from '../../shared/utils/dates'
 import { ratiosOn } from '../../shared/utils/insights'
 import type { ApiClient, FieldError } from '../support/client'
 import { createRoutine, insertHistory, insertPainFlag, openTestDatabase, type HistoryDay } from '../support/insights-data'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
 import type { AthleteReport, PainFlagItem, TeamInsights } from '../../types/api'
+import { useStack } from '../support/hooks'
 
 type TeamAnswer = TeamInsights
 type AthleteAnswer = AthleteReport
 type Flag = PainFlagItem
 
-let stack: Stack
+const running = useStack()
 let db: Database
 let today: string
 let teamA: Awaited<ReturnType<typeof registerCoach>>
@@ -46,16 +46,15 @@ const tamsinDays: HistoryDay[] = [
 ]
 
 beforeAll(async () => {
-  stack = await startStack()
-  db = await openTestDatabase(stack.databaseUrl)
+  db = await openTestDatabase(running.stack.databaseUrl)
   today = todayIn('UTC')
-  teamA = await registerCoach(stack, 'Larchford Ridge Runners')
-  teamB = await registerCoach(stack, 'Brackenmoor Road Runners')
+  teamA = await registerCoach(running.stack, 'Larchford Ridge Runners')
+  teamB = await registerCoach(running.stack, 'Brackenmoor Road Runners')
   squadId = (await teamA.coach.post<{ id: number }>('/api/squads', { name: 'Road squad' })).data.id
   otherSquadId = (await teamB.coach.post<{ id: number }>('/api/squads', { name: 'Fell squad' })).data.id
-  tamsin = await addAthlete(stack, teamA.coach, { name: 'Tamsin Rook', squadId })
-  cai = await addAthlete(stack, teamA.coach, { name: 'Cai Penhallow' })
-  oren = await addAthlete(stack, teamB.coach, { name: 'Oren Blythe' })
+  tamsin = await addAthlete(running.stack, teamA.coach, { name: 'Tamsin Rook', squadId })
+  cai = await addAthlete(running.stack, teamA.coach, { name: 'Cai Penhallow' })
+  oren = await addAthlete(running.stack, teamB.coach, { name: 'Oren Blythe' })
 
   const routineA = await createRoutine(db, teamA.teamId)
   const sessions = await insertHistory(db, { teamId: teamA.teamId, athleteId: tamsin.userId, today, routine: routineA, days: tamsinDays })
@@ -69,7 +68,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   db?.$client.close()
-  await stack?.stop()
 })
 
 function doneDays(days: HistoryDay[]) {
@@ -187,7 +185,7 @@ describe('pain flags', () => {
     expect((await teamA.coach.get<Flag[]>('/api/pain-flags?status=open')).data).toEqual([])
     expect((await teamA.coach.get<Flag[]>('/api/pain-flags?status=acknowledged')).data.map(flag => flag.id)).toEqual([flagId])
 
-    const mail = await stack.mail.waitFor(tamsin.email, /replied to your pain report/)
+    const mail = await running.stack.mail.waitFor(tamsin.email, /replied to your pain report/)
     expect(mail.text).toContain(reply)
     expect(mail.text).toContain('/progress')
 

@@ -1,21 +1,13 @@
 import { createClient } from '@libsql/client'
-import { afterAll, beforeAll, expect, it } from 'vitest'
+import { expect, it } from 'vitest'
 import { ApiClient } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
 
-let stack: Stack
-
-beforeAll(async () => {
-  stack = await startStack()
-})
-
-afterAll(async () => {
-  await stack?.stop()
-})
+const running = useStack()
 
 async function outboxRows(to: string) {
-  const db = createClient({ url: stack.databaseUrl })
+  const db = createClient({ url: running.stack.databaseUrl })
   try {
     const result = await db.execute({ sql: 'select status, attempts, last_error from email_outbox where "to" = ?', args: [to] })
     return result.rows as unknown as { status: string, attempts: number, last_error: string | null }[]
@@ -26,10 +18,10 @@ async function outboxRows(to: string) {
 }
 
 it('keeps messages while the mail server is down and delivers each exactly once when it returns', async () => {
-  const { email } = await registerCoach(stack)
-  await stack.mail.stop()
+  const { email } = await registerCoach(running.stack)
+  await running.stack.mail.stop()
 
-  expect((await new ApiClient(stack.url).post('/api/auth/password-reset', { email })).status).toBe(202)
+  expect((await new ApiClient(running.stack.url).post('/api/auth/password-reset', { email })).status).toBe(202)
 
   // Wait until the worker has tried and failed at least once.
   const deadline = Date.now() + 10_000
@@ -43,12 +35,12 @@ it('keeps messages while the mail server is down and delivers each exactly once 
   expect(rows[0]!.attempts).toBeGreaterThanOrEqual(1)
   expect(rows[0]!.last_error).toBeTruthy()
 
-  await stack.mail.start()
-  const mail = await stack.mail.waitFor(email, /Reset your Switchback password/, 15_000)
+  await running.stack.mail.start()
+  const mail = await running.stack.mail.waitFor(email, /Reset your Switchback password/, 15_000)
   expect(mail.text).toContain('/reset/')
 
   // Give the worker several more rounds: nothing is sent a second time.
   await new Promise(resolve => setTimeout(resolve, 1500))
-  expect(stack.mail.to(email)).toHaveLength(1)
+  expect(running.stack.mail.to(email)).toHaveLength(1)
   expect((await outboxRows(email))[0]).toMatchObject({ status: 'sent' })
 })

@@ -1,30 +1,17 @@
-import { createClient, type Client } from '@libsql/client'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { ApiClient, type FieldError } from '../support/client'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
 import type { RoutinePreview } from '../../shared/types/routine'
 import type { RoutineStep } from '../../shared/schemas/routine-steps'
+import { useStack } from '../support/hooks'
+import type { RoutineDetail, RoutineList } from '../../types/api'
 
-let stack: Stack
-let sql: Client
+const running = useStack()
 
-interface Routine { id: number, title: string, category: string, description: string, version: number, steps: RoutineStep[], exercises: { id: number, name: string }[], archivedAt: string | null }
-interface List { items: { id: number, title: string, category: string, totals: { durationS: number, workS: number } }[], total: number }
 interface Conflict extends FieldError { data?: { fields?: Record<string, string>, currentVersion?: number } }
 
-beforeAll(async () => {
-  stack = await startStack()
-  sql = createClient({ url: stack.databaseUrl })
-})
-
-afterAll(async () => {
-  sql?.close()
-  await stack?.stop()
-})
-
 async function insertExercise(teamId: number, name: string, options: { category?: string, cautions?: { text: string, bodyAreas: string[] }[], archived?: boolean } = {}) {
-  const result = await sql.execute({
+  const result = await running.db.execute({
     sql: 'insert into exercises (team_id, name, category, cautions, archived_at) values (?, ?, ?, ?, ?) returning id',
     args: [teamId, name, options.category ?? 'strength', JSON.stringify(options.cautions ?? []), options.archived ? Date.now() : null],
   })
@@ -32,12 +19,12 @@ async function insertExercise(teamId: number, name: string, options: { category?
 }
 
 async function usedExercises(routineId: number) {
-  const result = await sql.execute({ sql: 'select exercise_id from routine_exercises where routine_id = ? order by exercise_id', args: [routineId] })
+  const result = await running.db.execute({ sql: 'select exercise_id from routine_exercises where routine_id = ? order by exercise_id', args: [routineId] })
   return result.rows.map(row => Number(row.exercise_id))
 }
 
 async function routineCount(teamId: number) {
-  const result = await sql.execute({ sql: 'select count(*) as n from routines where team_id = ?', args: [teamId] })
+  const result = await running.db.execute({ sql: 'select count(*) as n from routines where team_id = ?', args: [teamId] })
   return Number(result.rows[0]!.n)
 }
 
@@ -57,30 +44,30 @@ const hillSteps = (): RoutineStep[] => [
 
 describe('routines: create, read, list, save', () => {
   it('creates, reads back, lists with totals and saves new versions', async () => {
-    const { coach, teamId } = await registerCoach(stack)
+    const { coach, teamId } = await registerCoach(running.stack)
     const calf = await insertExercise(teamId, 'Single-leg calf raise', { cautions: [{ text: 'Slow on the way down', bodyAreas: ['achilles', 'calf'] }] })
     const steps: RoutineStep[] = [...hillSteps(), { id: 'calf', type: 'sets', exerciseId: calf, sets: 3, perSet: { by: 'reps', reps: 12 }, restSeconds: 60 }]
     const created = await coach.post<{ id: number, version: number }>('/api/routines', { title: 'Ridge Lane short hills', category: 'hills', description: 'Eight climbs', steps })
     expect(created.status).toBe(201)
     expect(created.data.version).toBe(1)
 
-    const read = await coach.get<Routine>(`/api/routines/${created.data.id}`)
+    const read = await coach.get<RoutineDetail>(`/api/routines/${created.data.id}`)
     expect(read.status).toBe(200)
     expect(read.data.steps).toEqual(steps)
     expect(read.data.exercises).toEqual([expect.objectContaining({ id: calf, name: 'Single-leg calf raise' })])
     expect(await usedExercises(created.data.id)).toEqual([calf])
 
-    const list = await coach.get<List>('/api/routines')
+    const list = await coach.get<RoutineList>('/api/routines')
     expect(list.data.items.map(item => item.id)).toContain(created.data.id)
     const item = list.data.items.find(entry => entry.id === created.data.id)!
     // 600 + 8 × 150 + 600, then 3 × 12 reps at 3 s a rep and 2 rests of 60 s
     expect(item.totals.durationS).toBe(2400 + 108 + 120)
     expect(item.totals.workS).toBe(480 + 108)
 
-    expect((await coach.get<List>('/api/routines?q=RIDGE lane')).data.items.map(entry => entry.id)).toEqual([created.data.id])
-    expect((await coach.get<List>('/api/routines?q=nothing-like-this')).data.items).toEqual([])
-    expect((await coach.get<List>('/api/routines?category=strength')).data.items).toEqual([])
-    expect((await coach.get<List>('/api/routines?category=hills')).data.total).toBe(1)
+    expect((await coach.get<RoutineList>('/api/routines?q=RIDGE lane')).data.items.map(entry => entry.id)).toEqual([created.data.id])
+    expect((await coach.get<RoutineList>('/api/routines?q=nothing-like-this')).data.items).toEqual([])
+    expect((await coach.get<RoutineList>('/api/routines?category=strength')).data.items).toEqual([])
+    expect((await coach.get<RoutineList>('/api/routines?category=hills')).data.total).toBe(1)
     expect((await coach.get<FieldError>('/api/routines?category=swimming')).status).toBe(400)
 
     const saved = await coach.put<{ version: number }>(`/api/routines/${created.data.id}`, { title: 'Ridge Lane hills', category: 'hills', description: '', steps: hillSteps(), version: 1 })
@@ -89,11 +76,11 @@ describe('routines: create, read, list, save', () => {
     expect(await usedExercises(created.data.id)).toEqual([])
     const again = await coach.put<{ version: number }>(`/api/routines/${created.data.id}`, { title: 'Ridge Lane hills', category: 'mixed', description: '', steps: hillSteps(), version: 2 })
     expect(again.data.version).toBe(3)
-    expect((await coach.get<Routine>(`/api/routines/${created.data.id}`)).data).toMatchObject({ category: 'mixed', version: 3 })
+    expect((await coach.get<RoutineDetail>(`/api/routines/${created.data.id}`)).data).toMatchObject({ category: 'mixed', version: 3 })
   })
 
   it('refuses a stale save with 409 and keeps the newer version', async () => {
-    const { coach } = await registerCoach(stack)
+    const { coach } = await registerCoach(running.stack)
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Strides', category: 'drills', steps: hillSteps() })
     const body = { title: 'Edited in tab one', category: 'drills', description: '', steps: hillSteps(), version: 1 }
     expect((await coach.put(`/api/routines/${id}`, body)).status).toBe(200)
@@ -101,7 +88,7 @@ describe('routines: create, read, list, save', () => {
     expect(stale.status).toBe(409)
     expect(stale.data.data?.currentVersion).toBe(2)
     expect(stale.data.message).toMatch(/saved this routine after you opened it/)
-    const current = await coach.get<Routine>(`/api/routines/${id}`)
+    const current = await coach.get<RoutineDetail>(`/api/routines/${id}`)
     expect(current.data).toMatchObject({ title: 'Edited in tab one', version: 2 })
     const missing = await coach.put<FieldError>(`/api/routines/${id}`, { ...body, version: undefined })
     expect(missing.status).toBe(400)
@@ -109,7 +96,7 @@ describe('routines: create, read, list, save', () => {
   })
 
   it('duplicates with a fresh version and its own exercise index, and archives', async () => {
-    const { coach, teamId } = await registerCoach(stack)
+    const { coach, teamId } = await registerCoach(running.stack)
     const squat = await insertExercise(teamId, 'Goblet squat')
     const steps: RoutineStep[] = [{ id: 'sq', type: 'sets', exerciseId: squat, sets: 3, perSet: { by: 'reps', reps: 10 }, restSeconds: 90, target: { type: 'load', kg: 16 } }]
     const { data: original } = await coach.post<{ id: number }>('/api/routines', { title: 'Gym circuit', category: 'strength', steps })
@@ -118,7 +105,7 @@ describe('routines: create, read, list, save', () => {
     expect(copy.status).toBe(201)
     expect(copy.data).toMatchObject({ version: 1, title: 'Gym circuit (copy)' })
     expect(copy.data.id).not.toBe(original.id)
-    expect((await coach.get<Routine>(`/api/routines/${copy.data.id}`)).data.steps).toEqual(steps)
+    expect((await coach.get<RoutineDetail>(`/api/routines/${copy.data.id}`)).data.steps).toEqual(steps)
     expect(await usedExercises(copy.data.id)).toEqual([squat])
     const named = await coach.post<{ title: string }>(`/api/routines/${original.id}/duplicate`, { title: 'Gym circuit, week 2' })
     expect(named.data.title).toBe('Gym circuit, week 2')
@@ -126,17 +113,17 @@ describe('routines: create, read, list, save', () => {
     const archived = await coach.post<{ archivedAt: string | null }>(`/api/routines/${original.id}/archive`)
     expect(archived.status).toBe(200)
     expect(archived.data.archivedAt).toBeTruthy()
-    expect((await coach.get<List>('/api/routines')).data.items.map(item => item.id)).not.toContain(original.id)
-    expect((await coach.get<List>('/api/routines?archived=true')).data.items.map(item => item.id)).toEqual([original.id])
-    expect((await coach.get<Routine>(`/api/routines/${original.id}`)).status).toBe(200)
+    expect((await coach.get<RoutineList>('/api/routines')).data.items.map(item => item.id)).not.toContain(original.id)
+    expect((await coach.get<RoutineList>('/api/routines?archived=true')).data.items.map(item => item.id)).toEqual([original.id])
+    expect((await coach.get<RoutineDetail>(`/api/routines/${original.id}`)).status).toBe(200)
     await coach.post(`/api/routines/${original.id}/archive`, { archived: false })
-    expect((await coach.get<List>('/api/routines')).data.items.map(item => item.id)).toContain(original.id)
+    expect((await coach.get<RoutineList>('/api/routines')).data.items.map(item => item.id)).toContain(original.id)
   })
 })
 
 describe('routines: bad input', () => {
   it('names the step and field of an invalid tree and saves nothing', async () => {
-    const { coach, teamId } = await registerCoach(stack)
+    const { coach, teamId } = await registerCoach(running.stack)
     const before = await routineCount(teamId)
     const bad = hillSteps()
     ;(bad[1] as Extract<RoutineStep, { type: 'repeat' }>).steps[1] = { id: 'down', type: 'block', kind: 'recovery', measure: { by: 'time', seconds: 0 } }
@@ -170,8 +157,8 @@ describe('routines: bad input', () => {
   })
 
   it('rejects exercises from another team, and newly added archived ones', async () => {
-    const mine = await registerCoach(stack)
-    const theirs = await registerCoach(stack, 'Brackenmoor Road Runners')
+    const mine = await registerCoach(running.stack)
+    const theirs = await registerCoach(running.stack, 'Brackenmoor Road Runners')
     const foreign = await insertExercise(theirs.teamId, 'Their hill sprint', { category: 'hill' })
     const old = await insertExercise(mine.teamId, 'Old lunge', { archived: true })
     const own = await insertExercise(mine.teamId, 'Step-up')
@@ -191,22 +178,22 @@ describe('routines: bad input', () => {
     // An exercise archived after it went into a routine may stay there.
     const kept = await insertExercise(mine.teamId, 'Soon archived')
     const { data: routine } = await mine.coach.post<{ id: number }>('/api/routines', { title: 'Keeps it', category: 'strength', steps: [step('a', kept)] })
-    await sql.execute({ sql: 'update exercises set archived_at = ? where id = ?', args: [Date.now(), kept] })
+    await running.db.execute({ sql: 'update exercises set archived_at = ? where id = ?', args: [Date.now(), kept] })
     const resaved = await mine.coach.put(`/api/routines/${routine.id}`, { title: 'Keeps it', category: 'strength', description: '', steps: [step('a', kept), step('b', own)], version: 1 })
     expect(resaved.status).toBe(200)
     expect(await usedExercises(routine.id)).toEqual([own, kept].sort((x, y) => x - y))
     const failed = await mine.coach.put<FieldError>(`/api/routines/${routine.id}`, { title: 'Keeps it', category: 'strength', description: '', steps: [step('a', foreign)], version: 2 })
     expect(failed.status).toBe(400)
     expect(await usedExercises(routine.id)).toEqual([own, kept].sort((x, y) => x - y))
-    expect((await mine.coach.get<Routine>(`/api/routines/${routine.id}`)).data.version).toBe(2)
+    expect((await mine.coach.get<RoutineDetail>(`/api/routines/${routine.id}`)).data.version).toBe(2)
   })
 })
 
 describe('routines: who may do what', () => {
   it('hides other teams\' routines behind 404, keeps athletes out with 403 and strangers with 401', async () => {
-    const owner = await registerCoach(stack)
-    const other = await registerCoach(stack, 'Quenmere Striders')
-    const { athlete } = await addAthlete(stack, owner.coach)
+    const owner = await registerCoach(running.stack)
+    const other = await registerCoach(running.stack, 'Quenmere Striders')
+    const { athlete } = await addAthlete(running.stack, owner.coach)
     const { data: { id } } = await owner.coach.post<{ id: number }>('/api/routines', { title: 'Private hills', category: 'hills', steps: hillSteps() })
     const body = { title: 'Taken over', category: 'hills', description: '', steps: hillSteps(), version: 1 }
 
@@ -215,7 +202,7 @@ describe('routines: who may do what', () => {
     expect((await other.coach.post(`/api/routines/${id}/duplicate`)).status).toBe(404)
     expect((await other.coach.post(`/api/routines/${id}/archive`)).status).toBe(404)
     expect((await other.coach.get(`/api/routines/${id}/preview?athleteId=1`)).status).toBe(404)
-    expect((await other.coach.get<List>('/api/routines')).data.items).toEqual([])
+    expect((await other.coach.get<RoutineList>('/api/routines')).data.items).toEqual([])
     expect((await other.coach.get(`/api/routines/${id + 100_000}`)).status).toBe(404)
 
     expect((await athlete.get('/api/routines')).status).toBe(403)
@@ -223,19 +210,19 @@ describe('routines: who may do what', () => {
     expect((await athlete.put(`/api/routines/${id}`, body)).status).toBe(403)
     expect((await athlete.post('/api/routines', { title: 'Mine', category: 'hills', steps: [] })).status).toBe(403)
 
-    const stranger = new ApiClient(stack.url)
+    const stranger = new ApiClient(running.stack.url)
     expect((await stranger.get('/api/routines')).status).toBe(401)
     expect((await stranger.post('/api/routines', { title: 'x', category: 'hills', steps: [] })).status).toBe(401)
-    expect((await owner.coach.get<Routine>(`/api/routines/${id}`)).data.title).toBe('Private hills')
+    expect((await owner.coach.get<RoutineDetail>(`/api/routines/${id}`)).data.title).toBe('Private hills')
   })
 })
 
 describe('routines: preview for an athlete', () => {
   it('fills in the athlete\'s paces, grade-adjusted hill paces, %1RM loads and matching cautions', async () => {
-    const { coach, teamId } = await registerCoach(stack)
-    const { userId: athleteId } = await addAthlete(stack, coach, { name: 'Tamsin Rook' })
-    await sql.execute({ sql: 'update athlete_profiles set benchmark_distance_m = 10000, benchmark_time_s = 2400, benchmark_date = ? where user_id = ?', args: ['2026-09-20', athleteId] })
-    await sql.execute({ sql: 'insert into injury_notes (team_id, athlete_id, body_area, status, note) values (?, ?, ?, ?, ?), (?, ?, ?, ?, ?)', args: [teamId, athleteId, 'achilles', 'active', 'Stiff in the mornings', teamId, athleteId, 'knee', 'resolved', 'Old niggle'] })
+    const { coach, teamId } = await registerCoach(running.stack)
+    const { userId: athleteId } = await addAthlete(running.stack, coach, { name: 'Tamsin Rook' })
+    await running.db.execute({ sql: 'update athlete_profiles set benchmark_distance_m = 10000, benchmark_time_s = 2400, benchmark_date = ? where user_id = ?', args: ['2026-09-20', athleteId] })
+    await running.db.execute({ sql: 'insert into injury_notes (team_id, athlete_id, body_area, status, note) values (?, ?, ?, ?, ?), (?, ?, ?, ?, ?)', args: [teamId, athleteId, 'achilles', 'active', 'Stiff in the mornings', teamId, athleteId, 'knee', 'resolved', 'Old niggle'] })
     const calf = await insertExercise(teamId, 'Single-leg calf raise', { cautions: [{ text: 'Lower slowly', bodyAreas: ['achilles', 'calf'] }, { text: 'Hold a rail for balance', bodyAreas: [] }] })
     const hill = await insertExercise(teamId, 'Hill sprint', { category: 'hill', cautions: [{ text: 'Walk down to protect the knees', bodyAreas: ['knee'] }] })
     const deadlift = await insertExercise(teamId, 'Romanian deadlift')
@@ -250,9 +237,9 @@ describe('routines: preview for an athlete', () => {
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Everything', category: 'mixed', steps })
 
     // A logged set of 80 kg × 5: Epley (1985) estimates 80 × (1 + 5/30) ≈ 93.3 kg.
-    const assignment = await sql.execute({ sql: 'insert into assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date) values (?, ?, ?, 1, ?, ?) returning id', args: [teamId, athleteId, id, JSON.stringify({ title: 'x', category: 'mixed', description: '', steps: [], exercises: [] }), '2026-11-02'] })
-    const session = await sql.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', args: [teamId, Number(assignment.rows[0]!.id), athleteId, 'c1', Date.now(), '2026-11-02'] })
-    await sql.execute({ sql: 'insert into entry_logs (team_id, session_id, athlete_id, idempotency_key, step_id, exercise_id, reps, kg) values (?, ?, ?, ?, ?, ?, ?, ?)', args: [teamId, Number(session.rows[0]!.id), athleteId, 'k1', 'rdl', deadlift, 5, 80] })
+    const assignment = await running.db.execute({ sql: 'insert into assignments (team_id, athlete_id, routine_id, routine_version, snapshot, date) values (?, ?, ?, 1, ?, ?) returning id', args: [teamId, athleteId, id, JSON.stringify({ title: 'x', category: 'mixed', description: '', steps: [], exercises: [] }), '2026-11-02'] })
+    const session = await running.db.execute({ sql: 'insert into session_logs (team_id, assignment_id, athlete_id, client_id, started_at, day) values (?, ?, ?, ?, ?, ?) returning id', args: [teamId, Number(assignment.rows[0]!.id), athleteId, 'c1', Date.now(), '2026-11-02'] })
+    await running.db.execute({ sql: 'insert into entry_logs (team_id, session_id, athlete_id, idempotency_key, step_id, exercise_id, reps, kg) values (?, ?, ?, ?, ?, ?, ?, ?)', args: [teamId, Number(session.rows[0]!.id), athleteId, 'k1', 'rdl', deadlift, 5, 80] })
 
     const response = await coach.get<RoutinePreview>(`/api/routines/${id}/preview?athleteId=${athleteId}`)
     expect(response.status).toBe(200)
@@ -289,10 +276,10 @@ describe('routines: preview for an athlete', () => {
   })
 
   it('says what is missing without a benchmark, and refuses athletes outside the team', async () => {
-    const { coach } = await registerCoach(stack)
-    const { userId } = await addAthlete(stack, coach)
-    const other = await registerCoach(stack, 'Varrow Edge Harriers')
-    const { userId: outsider } = await addAthlete(stack, other.coach)
+    const { coach } = await registerCoach(running.stack)
+    const { userId } = await addAthlete(running.stack, coach)
+    const other = await registerCoach(running.stack, 'Varrow Edge Harriers')
+    const { userId: outsider } = await addAthlete(running.stack, other.coach)
     const { data: { id } } = await coach.post<{ id: number }>('/api/routines', { title: 'Hills', category: 'hills', steps: hillSteps() })
     const preview = await coach.get<RoutinePreview>(`/api/routines/${id}/preview?athleteId=${userId}`)
     expect(preview.status).toBe(200)

@@ -1,56 +1,35 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { ApiClient, uniqueEmail, type FieldError } from '../support/client'
-import { Fixtures } from '../support/fixtures'
-import { linkIn } from '../support/mail-catcher'
-import { startStack, type Stack } from '../support/stack'
-import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import type { ApiClient, FieldError } from '../support/client'
+import { addAthlete, addCoach, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
+import type { RoutinePreview } from '../../shared/types/routine'
+import type { FinishedSession } from '../../types/api'
 
-let stack: Stack
-let fixtures: Fixtures
+const running = useStack()
 let team: Awaited<ReturnType<typeof registerCoach>>
 let secondCoach: { coach: ApiClient, email: string }
 let athlete: Awaited<ReturnType<typeof addAthlete>>
 let otherTeam: Awaited<ReturnType<typeof registerCoach>>
 let snapshot: AssignmentSnapshot
 
-interface FinishAnswer {
-  flags: { id: number, reason: string, pain: number, area: string | null, sudden: boolean }[]
-  urgent: boolean
-  guidance: { title: string, call: string, redFlags: string[], steps: string[] } | null
-}
-interface Preview { cautions: { source: string, exerciseName: string, text: string, matchedAreas: string[] }[] }
-
-async function addCoach(stack: Stack, by: ApiClient) {
-  const email = uniqueEmail('coach')
-  const invite = await by.post('/api/invites', { email, role: 'coach' })
-  if (invite.status !== 201) throw new Error(`invite failed: ${invite.status} ${invite.text}`)
-  const token = linkIn(await stack.mail.waitFor(email, /invited you/), /\/join\/[\w-]+/).split('/').pop()!
-  const coach = new ApiClient(stack.url)
-  const accepted = await coach.post(`/api/invites/${token}/accept`, { name: 'Idris Fenn', password: PASSWORD })
-  if (accepted.status !== 201) throw new Error(`accept failed: ${accepted.status} ${accepted.text}`)
-  return { coach, email }
-}
-
 /** Runs one session of the snapshot for the athlete and finishes it with the given report. */
 async function finishWith(report: Record<string, unknown>) {
-  const { id } = await fixtures.assignment(team.teamId, athlete.userId, snapshot)
+  const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
   const started = await athlete.athlete.post<{ id: number }>(`/api/assignments/${id}/sessions`, { clientId: `client-${Math.random().toString(36).slice(2, 12)}` })
-  return athlete.athlete.post<FinishAnswer>(`/api/sessions/${started.data.id}/finish`, { sessionRpe: 6, ...report })
+  return athlete.athlete.post<FinishedSession>(`/api/sessions/${started.data.id}/finish`, { sessionRpe: 6, ...report })
 }
 
 async function outboxTo(address: string) {
-  return fixtures.rows<{ template: string, payload: string }>('select template, payload from email_outbox where "to" = ? and template = ?', [address, 'pain_flag_raised'])
+  return running.fixtures.rows<{ template: string, payload: string }>('select template, payload from email_outbox where "to" = ? and template = ?', [address, 'pain_flag_raised'])
 }
 
 beforeAll(async () => {
-  stack = await startStack()
-  fixtures = new Fixtures(stack)
-  team = await registerCoach(stack)
-  secondCoach = await addCoach(stack, team.coach)
-  athlete = await addAthlete(stack, team.coach, { name: 'Tamsin Rook' })
-  otherTeam = await registerCoach(stack, 'Quenmere Striders')
-  const hill = await fixtures.exercise(team.teamId, { name: 'One-minute hill climbs', category: 'hill' })
+  team = await registerCoach(running.stack)
+  secondCoach = await addCoach(running.stack, team.coach)
+  athlete = await addAthlete(running.stack, team.coach, { name: 'Tamsin Rook' })
+  otherTeam = await registerCoach(running.stack, 'Quenmere Striders')
+  const hill = await running.fixtures.exercise(team.teamId, { name: 'One-minute hill climbs', category: 'hill' })
   snapshot = {
     title: 'Short hills',
     category: 'hills',
@@ -63,17 +42,12 @@ beforeAll(async () => {
   }
 })
 
-afterAll(async () => {
-  fixtures?.close()
-  await stack?.stop()
-})
-
 describe('pain reports reach the coaches', () => {
   it('queues one e-mail per coach for a new pain flag, in words', async () => {
     const finished = await finishWith({ pain: 5, painArea: 'quad' })
     expect(finished.status).toBe(200)
     expect(finished.data.flags).toHaveLength(1)
-    const [first, second] = await Promise.all([stack.mail.waitFor(team.email, /Pain report/), stack.mail.waitFor(secondCoach.email, /Pain report/)])
+    const [first, second] = await Promise.all([running.stack.mail.waitFor(team.email, /Pain report/), running.stack.mail.waitFor(secondCoach.email, /Pain report/)])
     expect(first.subject).toBe('Pain report: Tamsin Rook, 5/10 (thigh (quadriceps))')
     expect(first.text).toMatch(/reported pain of 5 out of 10/)
     expect(first.text).not.toMatch(/\bquad\b/)
@@ -94,7 +68,7 @@ describe('pain reports reach the coaches', () => {
 
     const finished = await finishWith({ pain: 6, painArea: 'calf' })
     expect(finished.data.flags).toHaveLength(1)
-    await stack.mail.waitFor(team.email, /6\/10 \(calf\)/)
+    await running.stack.mail.waitFor(team.email, /6\/10 \(calf\)/)
     expect(await outboxTo(team.email)).toHaveLength(2)
     expect(await outboxTo(secondCoach.email)).toHaveLength(1)
     expect((await team.coach.get<{ open: number }>('/api/pain-flags/open-count')).data.open).toBe(before + 1)
@@ -128,7 +102,7 @@ describe('urgent guidance', () => {
     expect(sudden.data.urgent).toBe(true)
     expect(sudden.data.guidance!.call).toMatch(/the emergency number 112/)
     expect(sudden.data.flags.map(flag => [flag.reason, flag.sudden])).toEqual([['sudden', true]])
-    const plan = await fixtures.assignment(team.teamId, athlete.userId, snapshot)
+    const plan = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
     expect((await athlete.athlete.get<{ team: { emergencyNumber: string } }>(`/api/assignments/${plan.id}/plan`)).data.team.emergencyNumber).toBe('112')
     expect((await team.coach.put('/api/team/emergency-number', { emergencyNumber: '' })).data).toEqual({ emergencyNumber: null })
   })
@@ -136,17 +110,17 @@ describe('urgent guidance', () => {
 
 describe('cautions that follow the body', () => {
   it('lists the uphill caution in the preview of an uphill routine for an athlete with an Achilles note', async () => {
-    const routineId = await fixtures.routine(team.teamId, { title: 'Eight uphill reps', category: 'hills', steps: [
+    const routineId = await running.fixtures.routine(team.teamId, { title: 'Eight uphill reps', category: 'hills', steps: [
       { id: 'warm', type: 'block', kind: 'warmup', measure: { by: 'time', seconds: 600 } },
       { id: 'reps', type: 'repeat', times: 8, steps: [
         { id: 'up', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 }, grade: 0.06, target: { type: 'effort', rpe: 8 } },
         { id: 'down', type: 'block', kind: 'recovery', measure: { by: 'time', seconds: 90 } },
       ] },
     ] })
-    const before = await team.coach.get<Preview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
+    const before = await team.coach.get<RoutinePreview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
     expect(before.data.cautions.find(caution => caution.exerciseName === 'Uphill efforts')!.matchedAreas).toEqual([])
-    await fixtures.injuryNote(team.teamId, athlete.userId, 'achilles', 'Stiff in the mornings')
-    const preview = await team.coach.get<Preview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
+    await running.fixtures.injuryNote(team.teamId, athlete.userId, 'achilles', 'Stiff in the mornings')
+    const preview = await team.coach.get<RoutinePreview>(`/api/routines/${routineId}/preview?athleteId=${athlete.userId}`)
     expect(preview.status).toBe(200)
     expect(preview.data.cautions[0]).toMatchObject({ source: 'step', exerciseName: 'Uphill efforts', matchedAreas: ['achilles'] })
     expect(preview.data.cautions[0]!.text).toMatch(/Achilles/)
@@ -155,14 +129,14 @@ describe('cautions that follow the body', () => {
 
 describe('young athletes', () => {
   it('keeps a guardian contact, shows no age-based HRmax under 18 and flags the plan', async () => {
-    const young = await addAthlete(stack, team.coach, { name: 'Wren Calder' })
+    const young = await addAthlete(running.stack, team.coach, { name: 'Wren Calder' })
     const birthYear = new Date().getUTCFullYear() - 16
     const saved = await young.athlete.patch<{ profile: { guardianContact: string }, derived: { under18: boolean, hrMaxEstimate: number | null } }>('/api/me/profile', { birthYear, guardianContact: 'Parent: Ada Calder, 01632 960000' })
     expect(saved.status).toBe(200)
     expect(saved.data.profile.guardianContact).toBe('Parent: Ada Calder, 01632 960000')
     expect(saved.data.derived.under18).toBe(true)
     expect(saved.data.derived.hrMaxEstimate).toBeNull()
-    const { id } = await fixtures.assignment(team.teamId, young.userId, snapshot)
+    const { id } = await running.fixtures.assignment(team.teamId, young.userId, snapshot)
     expect((await young.athlete.get<{ athlete: { under18: boolean } }>(`/api/assignments/${id}/plan`)).data.athlete.under18).toBe(true)
     // An adult gets the Tanaka (2001) estimate, 208 − 0.7 × age: at 40, 180 bpm.
     const adult = await athlete.athlete.patch<{ derived: { under18: boolean, hrMaxEstimate: number | null } }>('/api/me/profile', { birthYear: new Date().getUTCFullYear() - 40 })

@@ -1,22 +1,14 @@
 import { createClient } from '@libsql/client'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { ApiClient, type FieldError } from '../support/client'
 import { linkIn } from '../support/mail-catcher'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
 
-let stack: Stack
-
-beforeAll(async () => {
-  stack = await startStack()
-})
-
-afterAll(async () => {
-  await stack?.stop()
-})
+const running = useStack()
 
 async function signInAgain(email: string, password = PASSWORD) {
-  const client = new ApiClient(stack.url)
+  const client = new ApiClient(running.stack.url)
   const response = await client.post('/api/auth/login', { email, password })
   expect(response.status).toBe(200)
   return client
@@ -24,15 +16,15 @@ async function signInAgain(email: string, password = PASSWORD) {
 
 async function resetLink(email: string, nth: number) {
   const deadline = Date.now() + 10_000
-  while (stack.mail.to(email).length < nth && Date.now() < deadline) await new Promise(r => setTimeout(r, 50))
-  const mail = stack.mail.to(email)[nth - 1]
+  while (running.stack.mail.to(email).length < nth && Date.now() < deadline) await new Promise(r => setTimeout(r, 50))
+  const mail = running.stack.mail.to(email)[nth - 1]
   expect(mail, `reset mail ${nth} to ${email}`).toBeDefined()
   return linkIn(mail!, /\/reset\/[\w-]+/).split('/').pop()!
 }
 
 describe('server-side sessions', () => {
   it('logging out ends the session on the server: a copied cookie stops working', async () => {
-    const { coach } = await registerCoach(stack)
+    const { coach } = await registerCoach(running.stack)
     const stolen = coach.copy()
     const stolenToo = coach.copy()
     expect((await stolen.get('/api/me')).status).toBe(200)
@@ -43,9 +35,9 @@ describe('server-side sessions', () => {
   })
 
   it('a password reset ends every session of that person and spends their other reset links', async () => {
-    const { coach, email } = await registerCoach(stack)
+    const { coach, email } = await registerCoach(running.stack)
     const laptop = await signInAgain(email)
-    const visitor = new ApiClient(stack.url)
+    const visitor = new ApiClient(running.stack.url)
     expect((await visitor.post('/api/auth/password-reset', { email })).status).toBe(202)
     const older = await resetLink(email, 1)
     expect((await visitor.post('/api/auth/password-reset', { email })).status).toBe(202)
@@ -59,7 +51,7 @@ describe('server-side sessions', () => {
   })
 
   it('changing the password needs the current one, keeps this session and ends the others', async () => {
-    const { coach, email } = await registerCoach(stack)
+    const { coach, email } = await registerCoach(running.stack)
     const phone = await signInAgain(email)
     const wrong = await coach.post<FieldError>('/api/me/password', { currentPassword: 'not-my-password', newPassword: 'a-changed-password' })
     expect(wrong.status).toBe(400)
@@ -73,12 +65,12 @@ describe('server-side sessions', () => {
     expect(changed.data.endedSessions).toBe(1)
     expect((await coach.get('/api/me')).status).toBe(200)
     expect((await phone.get('/api/me')).status).toBe(401)
-    expect((await new ApiClient(stack.url).post('/api/auth/login', { email, password: PASSWORD })).status).toBe(401)
+    expect((await new ApiClient(running.stack.url).post('/api/auth/login', { email, password: PASSWORD })).status).toBe(401)
     await signInAgain(email, 'a-changed-password')
   })
 
   it('signing out on all devices ends every session, this one included', async () => {
-    const { coach, email } = await registerCoach(stack)
+    const { coach, email } = await registerCoach(running.stack)
     const phone = await signInAgain(email)
     const ended = await phone.post<{ endedSessions: number }>('/api/me/sign-out-everywhere')
     expect(ended.status).toBe(200)
@@ -88,10 +80,10 @@ describe('server-side sessions', () => {
   })
 
   it('removing a member from a team ends their sessions there', async () => {
-    const { coach, teamId } = await registerCoach(stack)
-    const { athlete, userId } = await addAthlete(stack, coach)
+    const { coach, teamId } = await registerCoach(running.stack)
+    const { athlete, userId } = await addAthlete(running.stack, coach)
     expect((await athlete.get('/api/me')).status).toBe(200)
-    const db = createClient({ url: stack.databaseUrl })
+    const db = createClient({ url: running.stack.databaseUrl })
     try {
       const live = async () => Number((await db.execute({ sql: 'SELECT count(*) AS n FROM auth_sessions WHERE user_id = ? AND team_id = ?', args: [userId, teamId] })).rows[0]!.n)
       expect(await live()).toBe(1)
@@ -106,9 +98,9 @@ describe('server-side sessions', () => {
   })
 
   it('a cookie sealed before server-side sessions existed (no session id) is refused', async () => {
-    const { coach } = await registerCoach(stack)
+    const { coach } = await registerCoach(running.stack)
     expect((await coach.get('/api/me')).status).toBe(200)
-    const forged = new ApiClient(stack.url, { cookie: 'nuxt-session=not-a-sealed-value' })
+    const forged = new ApiClient(running.stack.url, { cookie: 'nuxt-session=not-a-sealed-value' })
     expect((await forged.get('/api/me')).status).toBe(401)
   })
 })

@@ -1,38 +1,29 @@
 import { connect } from 'node:net'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
 import { ApiClient, uniqueEmail, type FieldError } from '../support/client'
-import { Fixtures } from '../support/fixtures'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, PASSWORD, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
 
-let stack: Stack
-let fixtures: Fixtures
+// TRUST_PROXY lets the tests speak from several client addresses through X-Forwarded-For.
+const running = useStack({ S3_PUBLIC_ENDPOINT: 'http://media.larchford.test:9000', TRUST_PROXY: 'true' })
 let team: Awaited<ReturnType<typeof registerCoach>>
 let athlete: Awaited<ReturnType<typeof addAthlete>>
 
 beforeAll(async () => {
-  // TRUST_PROXY lets the tests speak from several client addresses through X-Forwarded-For.
-  stack = await startStack({ S3_PUBLIC_ENDPOINT: 'http://media.larchford.test:9000', TRUST_PROXY: 'true' })
-  fixtures = new Fixtures(stack)
-  team = await registerCoach(stack)
-  athlete = await addAthlete(stack, team.coach, { name: 'Ffion Aske' })
-})
-
-afterAll(async () => {
-  fixtures?.close()
-  await stack?.stop()
+  team = await registerCoach(running.stack)
+  athlete = await addAthlete(running.stack, team.coach, { name: 'Ffion Aske' })
 })
 
 async function count(table: string) {
-  const [row] = await fixtures.rows<{ n: number }>(`select count(*) as n from ${table}`)
+  const [row] = await running.fixtures.rows<{ n: number }>(`select count(*) as n from ${table}`)
   return Number(row!.n)
 }
 
 /** A form post as another site's page would send it, carrying the signed-in coach's cookie. */
 async function formPost(client: ApiClient, type: string, body: string, headers: Record<string, string>) {
   const cookie = (await client.get('/api/me')).status === 200 ? client.cookieHeader() : ''
-  const response = await fetch(`${stack.url}/api/invites`, { method: 'POST', headers: { 'content-type': type, 'cookie': cookie, ...headers }, body, redirect: 'manual' })
+  const response = await fetch(`${running.stack.url}/api/invites`, { method: 'POST', headers: { 'content-type': type, 'cookie': cookie, ...headers }, body, redirect: 'manual' })
   return response.status
 }
 
@@ -57,18 +48,18 @@ describe('cross-site requests', () => {
   })
 
   it('refuses a cross-site sign-in and registration, and accepts same-origin JSON', async () => {
-    const visitor = new ApiClient(stack.url)
+    const visitor = new ApiClient(running.stack.url)
     expect((await visitor.request('POST', '/api/auth/login', { email: team.email, password: PASSWORD }, { headers: { 'sec-fetch-site': 'cross-site' } })).status).toBe(403)
     expect((await visitor.request('POST', '/api/auth/register', { name: 'Mallory', email: uniqueEmail(), password: PASSWORD, teamName: 'Fakes' }, { headers: { origin: 'http://evil.example' } })).status).toBe(403)
-    expect((await visitor.request('POST', '/api/auth/login', { email: team.email, password: PASSWORD }, { headers: { 'origin': stack.url, 'sec-fetch-site': 'same-origin' } })).status).toBe(200)
+    expect((await visitor.request('POST', '/api/auth/login', { email: team.email, password: PASSWORD }, { headers: { 'origin': running.stack.url, 'sec-fetch-site': 'same-origin' } })).status).toBe(200)
     // A write with no body at all needs no content type.
-    expect((await visitor.request('POST', '/api/auth/logout', undefined, { headers: { origin: stack.url } })).status).toBe(204)
+    expect((await visitor.request('POST', '/api/auth/logout', undefined, { headers: { origin: running.stack.url } })).status).toBe(204)
   })
 })
 
 describe('headers', () => {
   it('sends the security headers on pages, with the object store allowed for media', async () => {
-    const page = await fetch(`${stack.url}/login`)
+    const page = await fetch(`${running.stack.url}/login`)
     const csp = page.headers.get('content-security-policy') ?? ''
     expect(csp).toContain('frame-ancestors \'none\'')
     expect(csp).toMatch(/media-src [^;]*http:\/\/media\.larchford\.test:9000/)
@@ -100,7 +91,7 @@ describe('limits', () => {
   it('refuses a chunked body over 1 MB with 413 while reading it', async () => {
     // A raw socket: the request keeps sending chunks until the answer arrives, as a real upload would.
     const status = await new Promise<number>((resolve, reject) => {
-      const socket = connect(Number(new URL(stack.url).port), '127.0.0.1')
+      const socket = connect(Number(new URL(running.stack.url).port), '127.0.0.1')
       let answer = ''
       let sent = 0
       socket.on('data', (data) => {
@@ -126,11 +117,11 @@ describe('limits', () => {
     })
     expect(status).toBe(413)
     // The server is still answering.
-    expect((await fetch(`${stack.url}/api/health`)).status).toBe(200)
+    expect((await fetch(`${running.stack.url}/api/health`)).status).toBe(200)
   })
 
   it('limits password-reset mails per recipient with 429, and queues nothing over the limit', async () => {
-    const visitor = new ApiClient(stack.url)
+    const visitor = new ApiClient(running.stack.url)
     const statuses: number[] = []
     for (let i = 0; i < 8; i++) statuses.push((await visitor.post('/api/auth/password-reset', { email: team.email })).status)
     expect(statuses.slice(0, 5)).toEqual([202, 202, 202, 202, 202])
@@ -138,7 +129,7 @@ describe('limits', () => {
     const refused = await visitor.post<FieldError>('/api/auth/password-reset', { email: team.email })
     expect(refused.data.message).toMatch(/Too many e-mails to this address/)
     await new Promise(r => setTimeout(r, 500))
-    const [row] = await fixtures.rows<{ n: number }>('select count(*) as n from email_outbox where "to" = ? and template = ?', [team.email, 'password_reset'])
+    const [row] = await running.fixtures.rows<{ n: number }>('select count(*) as n from email_outbox where "to" = ? and template = ?', [team.email, 'password_reset'])
     expect(Number(row!.n)).toBe(5)
   })
 
@@ -152,16 +143,16 @@ describe('limits', () => {
   })
 
   it('throttles by account and address together: a stranger elsewhere cannot lock the real person out', async () => {
-    const { email } = await registerCoach(stack)
-    const stranger = new ApiClient(stack.url, { 'x-forwarded-for': '203.0.113.9' })
+    const { email } = await registerCoach(running.stack)
+    const stranger = new ApiClient(running.stack.url, { 'x-forwarded-for': '203.0.113.9' })
     for (let i = 0; i < 5; i++) expect((await stranger.post('/api/auth/login', { email, password: 'wrong-password!' })).status).toBe(401)
     expect((await stranger.post('/api/auth/login', { email, password: PASSWORD })).status).toBe(429)
-    const owner = new ApiClient(stack.url, { 'x-forwarded-for': '198.51.100.7' })
+    const owner = new ApiClient(running.stack.url, { 'x-forwarded-for': '198.51.100.7' })
     expect((await owner.post('/api/auth/login', { email, password: PASSWORD })).status).toBe(200)
   })
 
   it('answers an unknown e-mail like a wrong password', async () => {
-    const visitor = new ApiClient(stack.url)
+    const visitor = new ApiClient(running.stack.url)
     const unknown = await visitor.post<FieldError>('/api/auth/login', { email: uniqueEmail('nobody'), password: 'whatever-password' })
     expect(unknown.status).toBe(401)
     expect(unknown.data.message).toBe('E-mail or password is wrong')
@@ -170,7 +161,7 @@ describe('limits', () => {
 
 describe('bad input gets a 4xx, never a 500', () => {
   it('injury note PATCH with nothing or only unknown keys is a 400', async () => {
-    const id = await fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Sore on descents')
+    const id = await running.fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Sore on descents')
     expect((await athlete.athlete.patch(`/api/injury-notes/${id}`, {})).status).toBe(400)
     const unknown = await athlete.athlete.patch<FieldError>(`/api/injury-notes/${id}`, { colour: 'red' })
     expect(unknown.status).toBe(400)
@@ -203,7 +194,7 @@ describe('bad input gets a 4xx, never a 500', () => {
 
   it('two registrations with one e-mail at the same moment: one 201, the rest 409', async () => {
     const email = uniqueEmail('twin')
-    const responses = await Promise.all(Array.from({ length: 4 }, () => new ApiClient(stack.url).post('/api/auth/register', { name: 'Twin', email, password: PASSWORD, teamName: 'Twin Harriers' })))
+    const responses = await Promise.all(Array.from({ length: 4 }, () => new ApiClient(running.stack.url).post('/api/auth/register', { name: 'Twin', email, password: PASSWORD, teamName: 'Twin Harriers' })))
     const statuses = responses.map(response => response.status).sort()
     expect(statuses).toEqual([201, 409, 409, 409])
   })
@@ -214,27 +205,27 @@ describe('bad input gets a 4xx, never a 500', () => {
       expect(response.status).toBe(400)
       expect(response.data.data?.fields?.benchmarkTimeS).toBeTruthy()
     }
-    await fixtures.rows('update athlete_profiles set benchmark_distance_m = 250000, benchmark_time_s = 30 where user_id = ?', [athlete.userId])
+    await running.fixtures.rows('update athlete_profiles set benchmark_distance_m = 250000, benchmark_time_s = 30 where user_id = ?', [athlete.userId])
     const snapshot: AssignmentSnapshot = { title: 'Strides', category: 'drills', description: '', exercises: [], steps: [{ id: 's', type: 'block', kind: 'work', measure: { by: 'time', seconds: 20 }, target: { type: 'pace', zone: 'mile' } }] }
-    const { id } = await fixtures.assignment(team.teamId, athlete.userId, snapshot)
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
     expect((await athlete.athlete.get(`/api/assignments/${id}/plan`)).status).toBe(200)
     expect((await athlete.athlete.get('/api/me/profile')).status).toBe(200)
     expect((await team.coach.get(`/api/athletes/${athlete.userId}/profile`)).status).toBe(200)
-    await fixtures.rows('update athlete_profiles set benchmark_distance_m = null, benchmark_time_s = null where user_id = ?', [athlete.userId])
+    await running.fixtures.rows('update athlete_profiles set benchmark_distance_m = null, benchmark_time_s = null where user_id = ?', [athlete.userId])
   })
 
   it('keeps plan dates within five years, and the calendar feed skips a bad stored row', async () => {
-    const routineId = await fixtures.routine(team.teamId, { title: 'Hills', category: 'hills', steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 } }] })
+    const routineId = await running.fixtures.routine(team.teamId, { title: 'Hills', category: 'hills', steps: [{ id: 'w', type: 'block', kind: 'work', measure: { by: 'time', seconds: 60 } }] })
     const far = await team.coach.post<FieldError>('/api/assignments', { routineId, athleteIds: [athlete.userId], dates: ['9999-12-31'] })
     expect(far.status).toBe(400)
     const today = new Date().toISOString().slice(0, 10)
     const made = await team.coach.post('/api/assignments', { routineId, athleteIds: [athlete.userId], dates: [today] })
     expect(made.status).toBe(201)
-    const [row] = await fixtures.rows<{ id: number }>('select id from assignments where athlete_id = ? and date = ? order by id desc limit 1', [athlete.userId, today])
+    const [row] = await running.fixtures.rows<{ id: number }>('select id from assignments where athlete_id = ? and date = ? order by id desc limit 1', [athlete.userId, today])
     expect((await team.coach.patch(`/api/assignments/${row!.id}`, { date: '9999-12-31' })).status).toBe(400)
     const feed = await athlete.athlete.post<{ url: string }>('/api/me/calendar-feed')
-    await fixtures.rows('update assignments set date = ? where id = ?', ['2026-02-30', row!.id])
-    const ics = await fetch(feed.data.url.replace(/^https?:\/\/[^/]+/, stack.url))
+    await running.fixtures.rows('update assignments set date = ? where id = ?', ['2026-02-30', row!.id])
+    const ics = await fetch(feed.data.url.replace(/^https?:\/\/[^/]+/, running.stack.url))
     expect(ics.status).toBe(200)
     expect(await ics.text()).toContain('BEGIN:VCALENDAR')
   })
@@ -247,7 +238,7 @@ describe('bad input gets a 4xx, never a 500', () => {
 
   it('takes entries for a finished session within the edit window and works out its status again', async () => {
     const snapshot: AssignmentSnapshot = { title: 'Two strides', category: 'drills', description: '', exercises: [], steps: [{ id: 'st', type: 'repeat', times: 2, steps: [{ id: 'go', type: 'block', kind: 'work', measure: { by: 'time', seconds: 20 } }] }] }
-    const { id } = await fixtures.assignment(team.teamId, athlete.userId, snapshot)
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
     const session = await athlete.athlete.post<{ id: number }>(`/api/assignments/${id}/sessions`, { clientId: 'late-entries' })
     const plan = await athlete.athlete.get<{ plan: { segments: { stepId: string, round: number | null, set: number | null, loggable: boolean }[] } }>(`/api/assignments/${id}/plan`)
     const loggable = plan.data.plan.segments.filter(segment => segment.loggable)
@@ -258,7 +249,7 @@ describe('bad input gets a 4xx, never a 500', () => {
     const finished = await athlete.athlete.post<{ status: string }>(`/api/sessions/${session.data.id}/finish`, { sessionRpe: 5 })
     expect(finished.data.status).toBe('partial')
     expect((await athlete.athlete.post(`/api/sessions/${session.data.id}/entries`, entry(loggable[1]!, 2))).status).toBe(201)
-    const [row] = await fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
+    const [row] = await running.fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
     expect(row!.status).toBe('done')
   })
 })

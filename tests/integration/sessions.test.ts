@@ -1,12 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
 import type { FieldError } from '../support/client'
-import { Fixtures } from '../support/fixtures'
-import { startStack, type Stack } from '../support/stack'
 import { addAthlete, registerCoach } from '../support/team'
+import { useStack } from '../support/hooks'
+import type { FinishedSession, LoggedEntry, Logbook, ProfileView, SessionPlan, StartedSession } from '../../types/api'
 
-let stack: Stack
-let fixtures: Fixtures
+const running = useStack()
 let team: Awaited<ReturnType<typeof registerCoach>>
 let athlete: Awaited<ReturnType<typeof addAthlete>>
 let teammate: Awaited<ReturnType<typeof addAthlete>>
@@ -14,36 +13,21 @@ let otherTeam: Awaited<ReturnType<typeof registerCoach>>
 let outsider: Awaited<ReturnType<typeof addAthlete>>
 let snapshot: AssignmentSnapshot
 
-interface Session { id: number, assignmentId: number, day: string, finishedAt: string | null, load: number | null, durationS: number | null }
-interface Entry { id: number, reps: number | null, kg: number | null, seconds: number | null, exerciseId: number | null }
-interface Plan {
-  plan: {
-    segments: { key: string, stepId: string, kind: string, loggable: boolean, manual: boolean, set: number | null, round: number | null, targetKg: number | null, targetPaceSPerKm: number | null, grade: number | null }[]
-    injuryCautions: { text: string, matchedAreas: string[] }[]
-    generalCautions: string[]
-    equipment: string[]
-    totals: { durationS: number }
-    missingMaxFor: string[]
-  }
-}
-
 beforeAll(async () => {
-  stack = await startStack()
-  fixtures = new Fixtures(stack)
-  team = await registerCoach(stack)
-  athlete = await addAthlete(stack, team.coach, { name: 'Ffion Aske' })
-  teammate = await addAthlete(stack, team.coach, { name: 'Cai Penhallow' })
-  otherTeam = await registerCoach(stack, 'Brackenmoor Harriers')
-  outsider = await addAthlete(stack, otherTeam.coach, { name: 'Ilse Marr' })
+  team = await registerCoach(running.stack)
+  athlete = await addAthlete(running.stack, team.coach, { name: 'Ffion Aske' })
+  teammate = await addAthlete(running.stack, team.coach, { name: 'Cai Penhallow' })
+  otherTeam = await registerCoach(running.stack, 'Brackenmoor Harriers')
+  outsider = await addAthlete(running.stack, otherTeam.coach, { name: 'Ilse Marr' })
 
-  const squat = await fixtures.exercise(team.teamId, {
+  const squat = await running.fixtures.exercise(team.teamId, {
     name: 'Goblet squat',
     cues: ['Elbows inside the knees', 'Sit between the heels'],
     equipment: ['Kettlebell'],
     cautions: [{ text: 'Keep knees tracking over the toes; stop on sharp knee pain.', bodyAreas: ['knee'] }],
   })
-  const plank = await fixtures.exercise(team.teamId, { name: 'Front plank', equipment: ['Mat'], cautions: [{ text: 'Keep the lower back flat.', bodyAreas: ['lower_back'] }] })
-  const hill = await fixtures.exercise(team.teamId, { name: 'Hill run', category: 'hill' })
+  const plank = await running.fixtures.exercise(team.teamId, { name: 'Front plank', equipment: ['Mat'], cautions: [{ text: 'Keep the lower back flat.', bodyAreas: ['lower_back'] }] })
+  const hill = await running.fixtures.exercise(team.teamId, { name: 'Hill run', category: 'hill' })
   snapshot = {
     title: 'Knees and hills',
     category: 'mixed',
@@ -59,23 +43,18 @@ beforeAll(async () => {
       ] },
     ],
   }
-  await fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Aches on descents')
+  await running.fixtures.injuryNote(team.teamId, athlete.userId, 'knee', 'Aches on descents')
   await athlete.athlete.patch('/api/me/profile', { benchmarkDistanceM: 5000, benchmarkTimeS: 20 * 60 })
 })
 
-afterAll(async () => {
-  fixtures?.close()
-  await stack?.stop()
-})
-
 async function assign() {
-  return fixtures.assignment(team.teamId, athlete.userId, snapshot)
+  return running.fixtures.assignment(team.teamId, athlete.userId, snapshot)
 }
 
 describe('the session plan', () => {
   it('fills in paces, grade-adjusted hills and cautions matching the injury note', async () => {
     const { id } = await assign()
-    const response = await athlete.athlete.get<Plan>(`/api/assignments/${id}/plan`)
+    const response = await athlete.athlete.get<SessionPlan>(`/api/assignments/${id}/plan`)
     expect(response.status).toBe(200)
     const { plan } = response.data
     const logged = plan.segments.filter(segment => segment.loggable)
@@ -108,9 +87,9 @@ describe('the session plan', () => {
 describe('logging a session', () => {
   it('starts once per clientId, and only for the assigned athlete', async () => {
     const { id } = await assign()
-    const first = await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-start-1' })
+    const first = await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-start-1' })
     expect(first.status).toBe(201)
-    const again = await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-start-1' })
+    const again = await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-start-1' })
     expect(again.status).toBe(200)
     expect(again.data.id).toBe(first.data.id)
     expect((await teammate.athlete.post(`/api/assignments/${id}/sessions`, { clientId: 'client-start-2' })).status).toBe(404)
@@ -126,24 +105,24 @@ describe('logging a session', () => {
 
   it('stores a repeated entry once and answers the first result', async () => {
     const { id } = await assign()
-    const session = (await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-idem-1' })).data
+    const session = (await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-idem-1' })).data
     const body = { idempotencyKey: 'client-idem-1:squat:0:1', stepId: 'squat', set: 1, reps: 8, kg: 24 }
-    const first = await athlete.athlete.post<Entry>(`/api/sessions/${session.id}/entries`, body)
+    const first = await athlete.athlete.post<LoggedEntry>(`/api/sessions/${session.id}/entries`, body)
     expect(first.status).toBe(201)
     expect(first.data.exerciseId).toBe(snapshot.exercises[0]!.id)
-    const retry = await athlete.athlete.post<Entry>(`/api/sessions/${session.id}/entries`, { ...body, reps: 5, kg: 30 })
+    const retry = await athlete.athlete.post<LoggedEntry>(`/api/sessions/${session.id}/entries`, { ...body, reps: 5, kg: 30 })
     expect(retry.status).toBe(200)
     expect(retry.data).toMatchObject({ id: first.data.id, reps: 8, kg: 24 })
-    const parallel = await Promise.all(Array.from({ length: 5 }, () => athlete.athlete.post<Entry>(`/api/sessions/${session.id}/entries`, { ...body, idempotencyKey: 'client-idem-1:squat:0:2', set: 2 })))
+    const parallel = await Promise.all(Array.from({ length: 5 }, () => athlete.athlete.post<LoggedEntry>(`/api/sessions/${session.id}/entries`, { ...body, idempotencyKey: 'client-idem-1:squat:0:2', set: 2 })))
     expect(new Set(parallel.map(response => response.data.id)).size).toBe(1)
     expect(parallel.filter(response => response.status === 201).length).toBeLessThanOrEqual(1)
-    const rows = await fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
+    const rows = await running.fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
     expect(Number(rows[0]!.n)).toBe(2)
   })
 
   it('refuses impossible values with field messages', async () => {
     const { id } = await assign()
-    const session = (await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-bad-1' })).data
+    const session = (await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-bad-1' })).data
     const post = (body: object) => athlete.athlete.post<FieldError>(`/api/sessions/${session.id}/entries`, { idempotencyKey: `bad-${Math.random().toString(36).slice(2)}`, stepId: 'squat', set: 1, ...body })
     expect((await post({ reps: -1 })).data.data?.fields?.reps).toMatch(/negative/)
     expect((await post({ kg: 2000 })).data.data?.fields?.kg).toMatch(/500 kg/)
@@ -157,13 +136,13 @@ describe('logging a session', () => {
     expect((await post({ stepId: 'warm', set: undefined, seconds: 300 })).status).toBe(400)
     const malformed = await athlete.athlete.request('POST', `/api/sessions/${session.id}/entries`, undefined, { raw: '{"reps":' })
     expect(malformed.status).toBe(400)
-    const rows = await fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
+    const rows = await running.fixtures.rows<{ n: number }>('select count(*) as n from entry_logs where session_id = ?', [session.id])
     expect(Number(rows[0]!.n)).toBe(0)
   })
 
   it('lets only the session\'s athlete log into it', async () => {
     const { id } = await assign()
-    const session = (await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-scope-1' })).data
+    const session = (await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-scope-1' })).data
     const body = { idempotencyKey: 'client-scope-1:plank:0:0', stepId: 'plank', seconds: 30 }
     expect((await teammate.athlete.post(`/api/sessions/${session.id}/entries`, body)).status).toBe(404)
     expect((await team.coach.post(`/api/sessions/${session.id}/entries`, body)).status).toBe(403)
@@ -178,8 +157,8 @@ describe('logging a session', () => {
 
   it('finishes with the session load, the local day, a pain flag and the assignment marked done', async () => {
     const { id } = await assign()
-    const session = (await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-full-1' })).data
-    const plan = (await athlete.athlete.get<Plan>(`/api/assignments/${id}/plan`)).data.plan
+    const session = (await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-full-1' })).data
+    const plan = (await athlete.athlete.get<SessionPlan>(`/api/assignments/${id}/plan`)).data.plan
     for (const segment of plan.segments.filter(item => item.loggable)) {
       const values = segment.stepId === 'squat' ? { reps: 8, kg: 40 } : segment.stepId === 'plank' ? { seconds: 30 } : { seconds: 55, meters: 200 }
       const response = await athlete.athlete.post(`/api/sessions/${session.id}/entries`, {
@@ -194,43 +173,43 @@ describe('logging a session', () => {
     const missingArea = await athlete.athlete.post<FieldError>(`/api/sessions/${session.id}/finish`, { sessionRpe: 6, pain: 5 })
     expect(missingArea.data.data?.fields?.painArea).toMatch(/where it hurts/)
     expect((await athlete.athlete.post<FieldError>(`/api/sessions/${session.id}/finish`, { sessionRpe: 11 })).status).toBe(400)
-    const finished = await athlete.athlete.post<{ session: Session, flags: { reason: string, pain: number, area: string }[], status: string }>(`/api/sessions/${session.id}/finish`, { sessionRpe: 6, pain: 5, painArea: 'knee', note: 'Knee grumbled on the second hill', durationS: 1800 })
+    const finished = await athlete.athlete.post<FinishedSession>(`/api/sessions/${session.id}/finish`, { sessionRpe: 6, pain: 5, painArea: 'knee', note: 'Knee grumbled on the second hill', durationS: 1800 })
     expect(finished.status).toBe(200)
     expect(finished.data.status).toBe('done')
     // Foster et al. (2001): session RPE × minutes = 6 × 30.
     expect(finished.data.session.load).toBe(180)
     expect(finished.data.session.day).toMatch(/^\d{4}-\d{2}-\d{2}$/)
     expect(finished.data.flags).toMatchObject([{ reason: 'high_pain', pain: 5, area: 'knee' }])
-    const [assignment] = await fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
+    const [assignment] = await running.fixtures.rows<{ status: string }>('select status from assignments where id = ?', [id])
     expect(assignment!.status).toBe('done')
     // Finishing again changes nothing and raises no second flag.
-    const again = await athlete.athlete.post<{ session: Session }>(`/api/sessions/${session.id}/finish`, { sessionRpe: 2 })
+    const again = await athlete.athlete.post<FinishedSession>(`/api/sessions/${session.id}/finish`, { sessionRpe: 2 })
     expect(again.status).toBe(200)
     expect(again.data.session.load).toBe(180)
-    const flags = await fixtures.rows('select * from pain_flags where session_id = ?', [session.id])
+    const flags = await running.fixtures.rows('select * from pain_flags where session_id = ?', [session.id])
     expect(flags).toHaveLength(1)
   })
 
   it('flags a new pain area but not a known one, and marks a session with missing sets partial', async () => {
     const known = await assign()
-    const first = (await athlete.athlete.post<Session>(`/api/assignments/${known.id}/sessions`, { clientId: 'client-area-1' })).data
+    const first = (await athlete.athlete.post<StartedSession>(`/api/assignments/${known.id}/sessions`, { clientId: 'client-area-1' })).data
     const quiet = await athlete.athlete.post<{ flags: unknown[], status: string }>(`/api/sessions/${first.id}/finish`, { sessionRpe: 4, pain: 2, painArea: 'knee' })
     expect(quiet.data.flags).toEqual([])
     expect(quiet.data.status).toBe('partial')
     const next = await assign()
-    const second = (await athlete.athlete.post<Session>(`/api/assignments/${next.id}/sessions`, { clientId: 'client-area-2' })).data
+    const second = (await athlete.athlete.post<StartedSession>(`/api/assignments/${next.id}/sessions`, { clientId: 'client-area-2' })).data
     const fresh = await athlete.athlete.post<{ flags: { reason: string }[] }>(`/api/sessions/${second.id}/finish`, { sessionRpe: 4, pain: 2, painArea: 'shoulder' })
     expect(fresh.data.flags).toMatchObject([{ reason: 'new_area' }])
     // The shoulder is known now: a later report of it is not new.
     const third = await assign()
-    const later = (await athlete.athlete.post<Session>(`/api/assignments/${third.id}/sessions`, { clientId: 'client-area-3' })).data
+    const later = (await athlete.athlete.post<StartedSession>(`/api/assignments/${third.id}/sessions`, { clientId: 'client-area-3' })).data
     const repeat = await athlete.athlete.post<{ flags: unknown[] }>(`/api/sessions/${later.id}/finish`, { sessionRpe: 3, pain: 1, painArea: 'shoulder' })
     expect(repeat.data.flags).toEqual([])
   })
 
   it('uses logged sets for the next %1RM load, rounded to 2.5 kg', async () => {
     const { id } = await assign()
-    const plan = (await athlete.athlete.get<Plan>(`/api/assignments/${id}/plan`)).data.plan
+    const plan = (await athlete.athlete.get<SessionPlan>(`/api/assignments/${id}/plan`)).data.plan
     // Best logged squat so far: 8 × 40 kg, Epley (1985) 40 × (1 + 8/30) = 50.7 kg; 70 % = 35.5 → 35 kg.
     expect(plan.segments.find(segment => segment.stepId === 'squat')!.targetKg).toBe(35)
     expect(plan.missingMaxFor).toEqual([])
@@ -240,10 +219,10 @@ describe('logging a session', () => {
 describe('the routine card link', () => {
   it('finds the athlete\'s next planned session of a routine', async () => {
     const today = new Date().toISOString().slice(0, 10)
-    const routineId = await fixtures.routine(team.teamId, { title: 'Card routine', steps: snapshot.steps })
-    const later = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-10' })
-    const sooner = await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-03' })
-    await fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: today, status: 'done' })
+    const routineId = await running.fixtures.routine(team.teamId, { title: 'Card routine', steps: snapshot.steps })
+    const later = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-10' })
+    const sooner = await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: '2099-01-03' })
+    await running.fixtures.assignment(team.teamId, athlete.userId, snapshot, { routineId, date: today, status: 'done' })
     const next = await athlete.athlete.get<{ id: number }>(`/api/me/next-assignment?routineId=${routineId}`)
     expect(next.status).toBe(200)
     expect(next.data.id).toBe(sooner.id)
@@ -256,9 +235,9 @@ describe('the routine card link', () => {
 describe('the logbook', () => {
   it('lists sessions with their sets by date range, for the athlete and their coaches', async () => {
     const { id } = await assign()
-    const session = (await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-book-1' })).data
+    const session = (await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-book-1' })).data
     await athlete.athlete.post(`/api/sessions/${session.id}/entries`, { idempotencyKey: 'client-book-1:plank', stepId: 'plank', seconds: 28 })
-    const mine = await athlete.athlete.get<{ sessions: (Session & { routine: { title: string }, entries: Entry[] })[] }>(`/api/me/logbook?from=${session.day}&to=${session.day}`)
+    const mine = await athlete.athlete.get<Logbook>(`/api/me/logbook?from=${session.day}&to=${session.day}`)
     expect(mine.status).toBe(200)
     const found = mine.data.sessions.find(item => item.id === session.id)!
     expect(found.routine.title).toBe('Knees and hills')
@@ -278,33 +257,27 @@ describe('the logbook', () => {
 
   it('edits an entry within 7 days only, by its athlete', async () => {
     const { id } = await assign()
-    const session = (await athlete.athlete.post<Session>(`/api/assignments/${id}/sessions`, { clientId: 'client-edit-1' })).data
-    const entry = (await athlete.athlete.post<Entry>(`/api/sessions/${session.id}/entries`, { idempotencyKey: 'client-edit-1:squat:1', stepId: 'squat', set: 1, reps: 8, kg: 20 })).data
-    const edited = await athlete.athlete.patch<Entry>(`/api/entries/${entry.id}`, { reps: 6, kg: 22.5 })
+    const session = (await athlete.athlete.post<StartedSession>(`/api/assignments/${id}/sessions`, { clientId: 'client-edit-1' })).data
+    const entry = (await athlete.athlete.post<LoggedEntry>(`/api/sessions/${session.id}/entries`, { idempotencyKey: 'client-edit-1:squat:1', stepId: 'squat', set: 1, reps: 8, kg: 20 })).data
+    const edited = await athlete.athlete.patch<LoggedEntry>(`/api/entries/${entry.id}`, { reps: 6, kg: 22.5 })
     expect(edited.status).toBe(200)
     expect(edited.data).toMatchObject({ reps: 6, kg: 22.5 })
     expect((await athlete.athlete.patch<FieldError>(`/api/entries/${entry.id}`, { kg: 2000 })).data.data?.fields?.kg).toMatch(/500/)
     expect((await athlete.athlete.patch(`/api/entries/${entry.id}`, {})).status).toBe(400)
     expect((await teammate.athlete.patch(`/api/entries/${entry.id}`, { reps: 1 })).status).toBe(404)
     expect((await team.coach.patch(`/api/entries/${entry.id}`, { reps: 1 })).status).toBe(403)
-    await fixtures.rows('update session_logs set started_at = ? where id = ?', [Date.now() - 8 * 86_400_000, session.id])
+    await running.fixtures.rows('update session_logs set started_at = ? where id = ?', [Date.now() - 8 * 86_400_000, session.id])
     const late = await athlete.athlete.patch<FieldError>(`/api/entries/${entry.id}`, { reps: 7 })
     expect(late.status).toBe(409)
     expect(late.data.message).toMatch(/7 days/)
-    const [row] = await fixtures.rows<{ reps: number }>('select reps from entry_logs where id = ?', [entry.id])
+    const [row] = await running.fixtures.rows<{ reps: number }>('select reps from entry_logs where id = ?', [entry.id])
     expect(row!.reps).toBe(6)
   })
 })
 
-interface Profile {
-  profile: { benchmarkDistanceM: number | null, benchmarkTimeS: number | null, birthYear: number | null, hrMax: number | null, units: string }
-  derived: { hrMax: number | null, hrMaxEstimate: number | null, hrMaxSource: string | null, paces: { tenK: number } | null }
-  injuryNotes: { id: number, bodyArea: string, status: string }[]
-}
-
 describe('the athlete profile', () => {
   it('saves benchmark, heart rate and units, and names the HRmax estimate', async () => {
-    const patched = await teammate.athlete.patch<Profile>('/api/me/profile', { benchmarkDistanceM: 10_000, benchmarkTimeS: 2400, benchmarkDate: '2026-09-20', birthYear: 1990, hrRest: 50, units: 'mi' })
+    const patched = await teammate.athlete.patch<ProfileView>('/api/me/profile', { benchmarkDistanceM: 10_000, benchmarkTimeS: 2400, benchmarkDate: '2026-09-20', birthYear: 1990, hrRest: 50, units: 'mi' })
     expect(patched.status).toBe(200)
     expect(patched.data.profile).toMatchObject({ benchmarkDistanceM: 10_000, units: 'mi', hrMax: null })
     // A 40:00 10K predicts itself: 240 s/km.
@@ -313,12 +286,12 @@ describe('the athlete profile', () => {
     // Tanaka, Monahan & Seals (2001): 208 − 0.7 × age.
     expect(patched.data.derived.hrMaxEstimate).toBe(Math.round(208 - 0.7 * age))
     expect(patched.data.derived.hrMaxSource).toBe('estimate')
-    const measured = await teammate.athlete.patch<Profile>('/api/me/profile', { hrMax: 191 })
+    const measured = await teammate.athlete.patch<ProfileView>('/api/me/profile', { hrMax: 191 })
     expect(measured.data.derived).toMatchObject({ hrMax: 191, hrMaxSource: 'measured' })
     const bad = await teammate.athlete.patch<FieldError>('/api/me/profile', { hrMax: 300, hrRest: 10, units: 'furlong', benchmarkDate: '2026-13-01' })
     expect(bad.status).toBe(400)
     expect(Object.keys(bad.data.data?.fields ?? {})).toEqual(expect.arrayContaining(['hrMax', 'hrRest', 'units', 'benchmarkDate']))
-    expect((await teammate.athlete.get<Profile>('/api/me/profile')).data.profile.hrMax).toBe(191)
+    expect((await teammate.athlete.get<ProfileView>('/api/me/profile')).data.profile.hrMax).toBe(191)
     const refused = await team.coach.get<FieldError>('/api/me/profile')
     expect(refused.status).toBe(403)
     // Every refusal has the same shape: a summary and (possibly empty) field messages.
@@ -338,15 +311,15 @@ describe('the athlete profile', () => {
     expect((await athlete.athlete.patch(`/api/injury-notes/${added.data.id}`, { status: 'active' })).status).toBe(404)
     expect((await otherTeam.coach.patch(`/api/injury-notes/${added.data.id}`, { status: 'active' })).status).toBe(404)
     expect((await team.coach.patch(`/api/injury-notes/${added.data.id}`, { note: 'Checked by the physio' })).status).toBe(200)
-    const profile = await teammate.athlete.get<Profile>('/api/me/profile')
+    const profile = await teammate.athlete.get<ProfileView>('/api/me/profile')
     expect(profile.data.injuryNotes).toMatchObject([{ bodyArea: 'achilles', status: 'resolved' }])
   })
 
   it('is readable and editable by the team\'s coaches only', async () => {
-    const read = await team.coach.get<Profile>(`/api/athletes/${athlete.userId}/profile`)
+    const read = await team.coach.get<ProfileView>(`/api/athletes/${athlete.userId}/profile`)
     expect(read.status).toBe(200)
     expect(read.data.injuryNotes.some(note => note.bodyArea === 'knee')).toBe(true)
-    const edited = await team.coach.patch<Profile>(`/api/athletes/${athlete.userId}/profile`, { units: 'mi' })
+    const edited = await team.coach.patch<ProfileView>(`/api/athletes/${athlete.userId}/profile`, { units: 'mi' })
     expect(edited.data.profile.units).toBe('mi')
     expect((await otherTeam.coach.get(`/api/athletes/${athlete.userId}/profile`)).status).toBe(404)
     expect((await otherTeam.coach.patch(`/api/athletes/${athlete.userId}/profile`, { units: 'km' })).status).toBe(404)
@@ -354,7 +327,7 @@ describe('the athlete profile', () => {
     expect((await team.coach.get(`/api/athletes/${team.userId}/profile`)).status).toBe(404)
     const note = await team.coach.post<{ id: number }>(`/api/athletes/${athlete.userId}/injury-notes`, { bodyArea: 'hip', note: 'Tight after long runs' })
     expect(note.status).toBe(201)
-    const [row] = await fixtures.rows<{ units: string }>('select units from athlete_profiles where user_id = ?', [athlete.userId])
+    const [row] = await running.fixtures.rows<{ units: string }>('select units from athlete_profiles where user_id = ?', [athlete.userId])
     expect(row!.units).toBe('mi')
   })
 })

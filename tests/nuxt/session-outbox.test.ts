@@ -27,6 +27,16 @@ registerEndpoint('/api/sessions/41/entries', {
 
 const entry = (key: string) => ({ idempotencyKey: key, stepId: 'squat', set: 1, round: null, reps: 5, kg: 60, seconds: null, meters: null, rpe: null, exerciseId: 1 })
 
+/** Starts session `clientId` and, once the server has given it an id, queues entry `key` for the server to answer with `answer`. */
+async function queueEntryAfterStart(clientId: string, key: string, answer: typeof entryAnswer) {
+  const outbox = useSessionOutboxStore()
+  outbox.enqueue({ kind: 'start', clientId, assignmentId: 7, startedAt: Date.now() })
+  await vi.waitFor(() => expect(outbox.sessions[clientId]).toBe(41))
+  entryAnswer = answer
+  outbox.enqueue({ kind: 'entry', clientId, entry: entry(key) } as never)
+  return outbox
+}
+
 describe('session outbox store', () => {
   beforeEach(() => {
     localStorage.clear()
@@ -48,11 +58,7 @@ describe('session outbox store', () => {
   })
 
   it('keeps an entry queued (and stored) while the server is unreachable', async () => {
-    const outbox = useSessionOutboxStore()
-    outbox.enqueue({ kind: 'start', clientId: 'c2', assignmentId: 7, startedAt: Date.now() })
-    await vi.waitFor(() => expect(outbox.sessions.c2).toBe(41))
-    entryAnswer = 'down'
-    outbox.enqueue({ kind: 'entry', clientId: 'c2', entry: entry('k2') } as never)
+    const outbox = await queueEntryAfterStart('c2', 'k2', 'down')
     await vi.waitFor(() => expect(calls.filter(call => call.path === 'entry')).toHaveLength(1))
     await vi.waitFor(() => expect(outbox.sending).toBe(false))
     expect(outbox.pendingFor('c2')).toBe(1)
@@ -61,11 +67,7 @@ describe('session outbox store', () => {
   })
 
   it('drops a refused entry with the server\'s own message and goes on', async () => {
-    const outbox = useSessionOutboxStore()
-    outbox.enqueue({ kind: 'start', clientId: 'c3', assignmentId: 7, startedAt: Date.now() })
-    await vi.waitFor(() => expect(outbox.sessions.c3).toBe(41))
-    entryAnswer = 'refuse'
-    outbox.enqueue({ kind: 'entry', clientId: 'c3', entry: entry('k3') } as never)
+    const outbox = await queueEntryAfterStart('c3', 'k3', 'refuse')
     await vi.waitFor(() => expect(outbox.rejected).toHaveLength(1))
     expect(outbox.rejected[0]!.message).toBe('Sessions can be changed for 7 days after they start')
     expect(outbox.pendingFor('c3')).toBe(0)

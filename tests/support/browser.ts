@@ -1,6 +1,7 @@
 import { mkdirSync } from 'node:fs'
 import { join, resolve } from 'node:path'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import { uniqueEmail } from './client'
 import { PASSWORD } from './team'
 
 export const artifacts = resolve(import.meta.dirname, '../artifacts')
@@ -56,6 +57,24 @@ export async function signInThroughPage(context: BrowserContext, baseUrl: string
   await page.getByRole('button', { name: 'Sign in' }).click()
   await page.waitForURL(url => (options.next ? url.pathname === options.next : !url.pathname.startsWith('/login')), { timeout: 30_000 })
   return page
+}
+
+/**
+ * Signs `context` in through the sign-in route, without a page: its pages and requests then carry the
+ * session cookie.
+ */
+export async function signInByRequest(context: BrowserContext, baseUrl: string, email: string, password = PASSWORD) {
+  const response = await context.request.post(`${baseUrl}/api/auth/login`, { data: { email, password } })
+  if (response.status() !== 200) throw new Error(`sign-in of ${email} answered ${response.status()}: ${await response.text()}`)
+}
+
+/** Fills the register form with a new coach and their team once it has come alive; the caller presses the button. */
+export async function fillRegisterForm(page: Page, coach: { name: string, password: string, teamName: string, email?: string }) {
+  await waitForAuthForm(page)
+  await page.getByLabel('Your name').fill(coach.name)
+  await page.getByLabel('E-mail').fill(coach.email ?? uniqueEmail('coach'))
+  await page.getByLabel('Password').fill(coach.password)
+  await page.getByLabel('Team or club name').fill(coach.teamName)
 }
 
 export interface StepTimings {

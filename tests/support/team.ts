@@ -36,3 +36,14 @@ export async function addCoach(stack: Stack, head: ApiClient, options: { name?: 
   const { client, email, userId } = await joinByInvite(stack, head, 'coach', options.name ?? 'Idris Fenn')
   return { coach: client, email, userId }
 }
+
+/** A squad of `count` invited athletes, named "<athleteName> 1", "<athleteName> 2" and so on. */
+export async function addSquad(stack: Stack, coach: ApiClient, options: { name: string, count: number, athleteName: string }) {
+  const squad = await coach.post<{ id: number }>('/api/squads', { name: options.name })
+  if (squad.status !== 201) throw new Error(`squad failed: ${squad.status} ${squad.text}`)
+  const athletes = []
+  for (let index = 0; index < options.count; index++) {
+    athletes.push(await addAthlete(stack, coach, { squadId: squad.data.id, name: `${options.athleteName} ${index + 1}` }))
+  }
+  return { squadId: squad.data.id, athletes }
+}
