@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
-import { BlockOptionalPart, InsightsExportLinks, UiPageTitle, UiSection } from '#components'
+import { Play } from 'lucide-vue-next'
+import { BlockOptionalPart, InsightsExportLinks, UiIconButton, UiPageTitle, UiSection } from '#components'
 
 // Small pieces several screens share: what each renders is what those screens used to write out by hand.
 describe('InsightsExportLinks', () => {
@@ -54,5 +55,23 @@ describe('BlockOptionalPart', () => {
     await part.setProps({ modelValue: true })
     expect(part.text()).toContain('Taper fields')
     expect(part.find('[role="alert"]').text()).toBe('Pick 1 to 3 weeks')
+  })
+})
+
+describe('UiIconButton', () => {
+  it('is a named button that passes its clicks, state and classes through', async () => {
+    let clicks = 0
+    const button = await mountSuspended(UiIconButton, {
+      props: { icon: Play, label: 'Play from cue 2' },
+      attrs: { class: 'btn-ghost', onClick: () => clicks++ },
+    })
+    const element = button.find('button')
+    expect(element.attributes()).toMatchObject({ 'type': 'button', 'aria-label': 'Play from cue 2', 'class': 'btn-ghost' })
+    expect(element.attributes('title')).toBeUndefined()
+    expect(element.find('svg').attributes('aria-hidden')).toBe('true')
+    await element.trigger('click')
+    expect(clicks).toBe(1)
+    await button.setProps({ title: 'Play' })
+    expect(element.attributes('title')).toBe('Play')
   })
 })
