@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { Play } from 'lucide-vue-next'
-import { BlockOptionalPart, InsightsExportLinks, UiIconButton, UiPageTitle, UiSection } from '#components'
+import { h } from 'vue'
+import { BlockOptionalPart, InsightsExportLinks, UiCalendarTable, UiIconButton, UiPageTitle, UiSection } from '#components'
 
 // Small pieces several screens share: what each renders is what those screens used to write out by hand.
 describe('InsightsExportLinks', () => {
@@ -73,5 +74,21 @@ describe('UiIconButton', () => {
     expect(clicks).toBe(1)
     await button.setProps({ title: 'Play' })
     expect(element.attributes('title')).toBe('Play')
+  })
+})
+
+describe('UiCalendarTable', () => {
+  it('heads the weeks with the weekdays, Monday first, and draws each day through the slot', async () => {
+    const weeks = [['2026-11-30', '2026-12-01', '2026-12-02', '2026-12-03', '2026-12-04', '2026-12-05', '2026-12-06'], ['2026-12-07', '2026-12-08', '2026-12-09', '2026-12-10', '2026-12-11', '2026-12-12', '2026-12-13']]
+    const table = await mountSuspended(UiCalendarTable, {
+      props: { weeks, caption: 'December', headClass: 'text-left', dayKey: (day: unknown) => String(day) },
+      slots: { day: ({ day }: { day: unknown }) => h('td', Number(String(day).slice(8))) },
+    })
+    expect(table.find('caption').text()).toBe('December')
+    expect(table.findAll('th').map(cell => cell.text())).toEqual(['Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat', 'Sun'])
+    expect(table.find('th').classes()).toContain('text-left')
+    const rows = table.findAll('tbody tr')
+    expect(rows).toHaveLength(2)
+    expect(rows[1]!.findAll('td').map(cell => cell.text())).toEqual(['7', '8', '9', '10', '11', '12', '13'])
   })
 })
