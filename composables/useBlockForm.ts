@@ -115,3 +115,30 @@ export function blockErrors(error: unknown) {
   const { fields, message } = readApiError(error, 'That did not work; try again')
   return { fields, message: Object.keys(fields).length ? 'Check the marked fields.' : message }
 }
+
+/**
+ * One request at a time from a block screen: `busy` while it runs; on failure its field messages land in
+ * `fields` (the form's `errors` unless told otherwise) and its summary in `formError`. Resolves true on success.
+ */
+export function useBlockRequests() {
+  const busy = ref(false)
+  const errors = ref<Record<string, string>>({})
+  const formError = ref('')
+  async function run(request: () => Promise<unknown>, fields = errors): Promise<boolean> {
+    busy.value = true
+    formError.value = ''
+    try {
+      await request()
+      fields.value = {}
+      return true
+    }
+    catch (error) {
+      ({ fields: fields.value, message: formError.value } = blockErrors(error))
+      return false
+    }
+    finally {
+      busy.value = false
+    }
+  }
+  return { busy, errors, formError, run }
+}

@@ -1,5 +1,5 @@
 import { defineStore } from 'pinia'
-import { computed, ref } from 'vue'
+import { computed, ref, type Ref } from 'vue'
 import { routineMetaSchema, type RoutineCategory } from '#shared/schemas/routine'
 import type { ExerciseCaution } from '#shared/types/domain'
 import type { BlockKind } from '#shared/utils/vocabulary'
@@ -107,23 +107,17 @@ export const useRoutineDraftStore = defineStore('routineDraft', () => {
   const canUndo = computed(() => past.value.length > 0)
   const canRedo = computed(() => future.value.length > 0)
 
-  function undo() {
-    const previous = past.value.pop()
-    if (previous === undefined) return false
-    future.value.push(serialize())
-    restore(previous)
+  /** Undo and redo: restore the latest snapshot of one history, keeping the present in the other. */
+  function travel(from: Ref<string[]>, to: Ref<string[]>) {
+    const snapshot = from.value.pop()
+    if (snapshot === undefined) return false
+    to.value.push(serialize())
+    restore(snapshot)
     lastCoalesceKey = null
     return true
   }
-
-  function redo() {
-    const next = future.value.pop()
-    if (next === undefined) return false
-    past.value.push(serialize())
-    restore(next)
-    lastCoalesceKey = null
-    return true
-  }
+  const undo = () => travel(past, future)
+  const redo = () => travel(future, past)
 
   function setMeta(field: 'title' | 'description', value: string): void
   function setMeta(field: 'category', value: RoutineCategory): void

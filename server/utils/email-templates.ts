@@ -1,6 +1,6 @@
 // Plain-text and simple HTML bodies for every message the app sends, in our own words.
 import { formatDay, isCalendarDay } from '#shared/utils/dates'
-import { bodyAreaLabel, painFlagReasonLabels, plural, type PainFlagReason } from '#shared/utils/vocabulary'
+import { bodyAreas, painFlagReasons, plural, type PainFlagReason } from '#shared/utils/vocabulary'
 
 export interface RenderedEmail {
   subject: string
@@ -60,8 +60,8 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
   },
   pain_flag_raised(payload) {
     const athlete = str(payload, 'athleteName')
-    const area = bodyAreaLabel(str(payload, 'area'))
-    const reason = painFlagReasonLabels[str(payload, 'reason') as PainFlagReason] ?? 'Pain reported'
+    const area = bodyAreas.label(str(payload, 'area'))
+    const reason = painFlagReasons.labels[str(payload, 'reason') as PainFlagReason] ?? 'Pain reported'
     const url = str(payload, 'url')
     const where = area ? ` (${area.toLowerCase()})` : ''
     const lines = [
@@ -141,7 +141,7 @@ export const emailTemplates: Record<string, (payload: Payload) => RenderedEmail>
   },
   pain_flag_reply(payload) {
     const coach = str(payload, 'coachName')
-    const area = bodyAreaLabel(str(payload, 'area')).toLowerCase()
+    const area = bodyAreas.label(str(payload, 'area')).toLowerCase()
     const url = str(payload, 'url')
     const lines = [
       `${coach} read the pain you reported${area ? ` (${area}, ${str(payload, 'pain')}/10)` : ''} and replied:`,

@@ -27,6 +27,19 @@ export function exerciseView(row: Pick<ExerciseRow, 'id' | 'name' | 'category' |
   }
 }
 
+/** What a listing of exercises reads for each one: the library, and the exercises a routine uses. */
+export const exerciseListColumns = {
+  id: exercises.id,
+  name: exercises.name,
+  category: exercises.category,
+  summary: exercises.summary,
+  cues: exercises.cues,
+  equipment: exercises.equipment,
+  cautions: exercises.cautions,
+  clipId: exercises.clipId,
+  archivedAt: exercises.archivedAt,
+}
+
 /** The ids of every exercise in any of the athlete's assignment snapshots (listed or named by a step). */
 export async function athleteExerciseIds(db: Database, teamId: number, athleteId: number): Promise<number[]> {
   // Snapshots are JSON in one column: SQLite's json_each/json_tree read the lists and steps in place.

@@ -2,6 +2,7 @@ import { and, asc, eq, inArray } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { clipCues, exercises, routineExercises, routines } from '../db/schema'
 import type { RoutineStep } from '#shared/schemas/routine-steps'
+import { exerciseListColumns } from './exercises'
 
 type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0]
 
@@ -61,17 +62,7 @@ export async function findTeamRoutine(db: Database, teamId: number, id: number) 
 export async function routineExerciseDetails(db: Database, teamId: number, steps: RoutineStep[]) {
   const ids = routineExerciseIds(steps)
   if (ids.length === 0) return []
-  const rows = await db.select({
-    id: exercises.id,
-    name: exercises.name,
-    category: exercises.category,
-    summary: exercises.summary,
-    cues: exercises.cues,
-    equipment: exercises.equipment,
-    cautions: exercises.cautions,
-    clipId: exercises.clipId,
-    archivedAt: exercises.archivedAt,
-  }).from(exercises).where(and(eq(exercises.teamId, teamId), inArray(exercises.id, ids)))
+  const rows = await db.select(exerciseListColumns).from(exercises).where(and(eq(exercises.teamId, teamId), inArray(exercises.id, ids)))
   // The cues pinned to moments of each clip, for the print card's numbered list with times.
   const pinned = await db.select({ exerciseId: clipCues.exerciseId, startSeconds: clipCues.startSeconds, text: clipCues.text })
     .from(clipCues).where(and(eq(clipCues.teamId, teamId), inArray(clipCues.exerciseId, ids)))

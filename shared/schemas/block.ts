@@ -12,7 +12,7 @@ const factor = z.number({ error: 'Give a factor' }).min(0.3, 'Keep at least 30 %
 
 export const progressionRuleSchema = z.object({
   stepId: z.string({ error: 'Pick a step' }).min(1, 'Pick a step').max(64),
-  field: z.enum(progressionFields, { error: 'Pick what changes' }),
+  field: z.enum(progressionFields.values, { error: 'Pick what changes' }),
   by: z.number({ error: 'Give the change per step' }).min(-1000, 'At most 1,000 per step').max(1000, 'At most 1,000 per step').refine(value => value !== 0, 'A change of 0 changes nothing'),
   mode: z.enum(['add', 'percent']).optional(),
   every: z.number().int('Whole weeks').min(1, 'At least every week').max(MAX_PLAN_WEEKS).optional(),
@@ -84,7 +84,7 @@ export const overrideInputSchema = z.object({
   /** Empty: back to the rules. */
   values: z.array(z.object({
     stepId: z.string().min(1).max(64),
-    field: z.enum(progressionFields),
+    field: z.enum(progressionFields.values),
     value: z.number({ error: 'Give a number' }),
   }).superRefine((value, ctx) => {
     const limits = progressionLimits[value.field]

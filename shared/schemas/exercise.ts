@@ -1,9 +1,9 @@
 import { z } from 'zod'
-import { bodyAreas, exerciseCategories, exerciseCategoryLabels, type ExerciseCategory } from '../utils/vocabulary'
+import { bodyAreas, exerciseCategories, type BodyArea, type ExerciseCategory } from '../utils/vocabulary'
 
 // One set of rules for the exercise form and the exercise routes.
 
-export { exerciseCategories, exerciseCategoryLabels, type ExerciseCategory }
+export { exerciseCategories, type ExerciseCategory }
 
 export const EXERCISE_LIMITS = {
   name: 120,
@@ -38,15 +38,15 @@ const equipmentItemSchema = z.string({ error: 'Equipment is text' }).trim().min(
 
 export const exerciseCautionSchema = z.object({
   text: z.string({ error: 'Write the caution' }).trim().min(1, 'Write the caution or remove it').max(EXERCISE_LIMITS.caution, `A caution is at most ${EXERCISE_LIMITS.caution} characters`),
-  bodyAreas: z.array(z.enum(bodyAreas, { error: 'Pick a body area from the list' }), { error: 'Body areas are a list' })
-    .max(bodyAreas.length, 'Too many body areas')
+  bodyAreas: z.array(z.enum(bodyAreas.values, { error: 'Pick a body area from the list' }), { error: 'Body areas are a list' })
+    .max(bodyAreas.values.length, 'Too many body areas')
     .refine(areas => new Set(areas).size === areas.length, 'Each body area once')
     .default([]),
 })
 
 const exerciseFields = {
   name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(EXERCISE_LIMITS.name, `Name is at most ${EXERCISE_LIMITS.name} characters`),
-  category: z.enum(exerciseCategories, { error: `Pick a category: ${exerciseCategories.map(key => exerciseCategoryLabels[key]).join(', ')}` }),
+  category: z.enum(exerciseCategories.values, { error: `Pick a category: ${exerciseCategories.values.map(key => exerciseCategories.labels[key]).join(', ')}` }),
   summary: z.string({ error: 'Summary is text' }).trim().max(EXERCISE_LIMITS.summary, `Summary is at most ${EXERCISE_LIMITS.summary} characters`),
   cues: z.array(cueSchema, { error: 'Cues are a list' }).max(EXERCISE_LIMITS.cues, `At most ${EXERCISE_LIMITS.cues} cues`),
   equipment: z.array(equipmentItemSchema, { error: 'Equipment is a list' })
@@ -74,7 +74,7 @@ const booleanQuery = z.enum(['true', 'false', ''], { error: 'Use true or false' 
 
 export const exerciseListQuerySchema = z.object({
   q: z.string().trim().max(EXERCISE_LIMITS.name, 'Search is at most 120 characters').optional(),
-  category: z.union([z.enum(exerciseCategories, { error: 'Unknown category' }), z.literal('')]).optional()
+  category: z.union([z.enum(exerciseCategories.values, { error: 'Unknown category' }), z.literal('')]).optional()
     .transform(value => value || undefined),
   equipment: z.string().trim().max(EXERCISE_LIMITS.equipmentItem, 'Equipment is at most 60 characters').optional()
     .transform(value => value || undefined),
@@ -119,7 +119,7 @@ export interface ExerciseView {
   summary: string
   cues: string[]
   equipment: string[]
-  cautions: { text: string, bodyAreas: (typeof bodyAreas)[number][] }[]
+  cautions: { text: string, bodyAreas: BodyArea[] }[]
   hasClip: boolean
   /** Duration and picture size are read from the container at confirm; null when it did not say. */
   clip: { contentType: string, size: number, durationSeconds: number | null, width: number | null, height: number | null } | null

@@ -1,4 +1,4 @@
-import { painFlagStatuses as storedPainFlagStatuses } from '../utils/vocabulary'
+import { painFlagStatuses } from '../utils/vocabulary'
 import { z } from 'zod'
 import { idParam, isoDateSchema } from './common'
 
@@ -19,9 +19,9 @@ export const athleteInsightsQuerySchema = z.object({
   weeks: z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').min(4, 'At least 4 weeks').max(52, 'At most 52 weeks').default(12),
 })
 
-export const painFlagStatuses = [...storedPainFlagStatuses, 'all'] as const
+const painFlagStatusFilters = [...painFlagStatuses.values, 'all'] as const
 export const painFlagsQuerySchema = z.object({
-  status: z.enum(painFlagStatuses, { error: 'Status is open, acknowledged or all' }).default('open'),
+  status: z.enum(painFlagStatusFilters, { error: 'Status is open, acknowledged or all' }).default('open'),
   athleteId: idParam.optional(),
 })
 

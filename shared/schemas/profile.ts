@@ -18,17 +18,17 @@ export const profilePatchSchema = z.object({
 }).refine(value => value.hrMax == null || value.hrRest == null || value.hrRest < value.hrMax, { message: 'Resting HR must be below HRmax', path: ['hrRest'] })
 
 export const injuryNoteSchema = z.object({
-  bodyArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }),
+  bodyArea: z.enum(bodyAreas.values, { error: 'Pick a body area from the list' }),
   note: z.string().trim().max(500, 'Notes are at most 500 characters').default(''),
   since: isoDateSchema.nullable().optional(),
-  status: z.enum(injuryStatuses).default('active'),
+  status: z.enum(injuryStatuses.values).default('active'),
 })
 
 export const injuryNotePatchSchema = z.strictObject({
-  bodyArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }).optional(),
+  bodyArea: z.enum(bodyAreas.values, { error: 'Pick a body area from the list' }).optional(),
   note: z.string().trim().max(500, 'Notes are at most 500 characters').optional(),
   since: isoDateSchema.nullable().optional(),
-  status: z.enum(injuryStatuses, { error: 'Status is active or resolved' }).optional(),
+  status: z.enum(injuryStatuses.values, { error: 'Status is active or resolved' }).optional(),
 }, { error: issue => issue.code === 'unrecognized_keys' ? `Unknown field: ${issue.keys.join(', ')}` : undefined })
   .refine(value => Object.values(value).some(field => field !== undefined), 'Send at least one of bodyArea, note, since or status')
 

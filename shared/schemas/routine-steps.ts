@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { formatDuration } from '../utils/pace'
 import { buildTimeline, segmentCountOf } from '../utils/timeline'
-import { blockKinds, type BlockKind } from '../utils/vocabulary'
+import { blockKinds, paceZones, type BlockKind, type PaceZone } from '../utils/vocabulary'
 
 // The routine step tree. One schema serves the builder's forms and the server's checks.
 
@@ -13,10 +13,7 @@ export const MAX_STEPS = 200
 // A guard against repeats of repeats multiplying into a timeline no session could hold.
 export const MAX_SEGMENTS = 10_000
 
-export { blockKinds, type BlockKind }
-export const paceZones = ['easy', 'marathon', 'threshold', 'tenK', 'fiveK', 'mile'] as const
-
-export type PaceZone = typeof paceZones[number]
+export { blockKinds, paceZones, type BlockKind, type PaceZone }
 
 export const measureSchema = z.discriminatedUnion('by', [
   z.object({ by: z.literal('time'), seconds: z.number().positive('Time must be more than 0 seconds').max(MAX_STEP_SECONDS, 'A step can last at most 6 hours') }),
@@ -25,7 +22,7 @@ export const measureSchema = z.discriminatedUnion('by', [
 ])
 
 export const targetSchema = z.discriminatedUnion('type', [
-  z.object({ type: z.literal('pace'), zone: z.enum(paceZones) }),
+  z.object({ type: z.literal('pace'), zone: z.enum(paceZones.values) }),
   z.object({ type: z.literal('effort'), rpe: z.number().min(0, 'RPE runs from 0 to 10').max(10, 'RPE runs from 0 to 10') }),
   z.object({ type: z.literal('load'), kg: z.number().positive('Load must be more than 0 kg').max(500, 'Load must be at most 500 kg') }),
   // %1RM stops at 100: a target above the athlete's one-rep max is not a set anyone should be given.
@@ -42,7 +39,7 @@ const exerciseId = z.number().int().positive('Pick an exercise')
 export const blockStepSchema = z.object({
   id: stepId,
   type: z.literal('block'),
-  kind: z.enum(blockKinds),
+  kind: z.enum(blockKinds.values),
   measure: measureSchema,
   exerciseId: exerciseId.optional(),
   target: targetSchema.optional(),

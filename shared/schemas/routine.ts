@@ -1,12 +1,12 @@
 import { z } from 'zod'
-import { routineCategories, routineCategoryLabels, type RoutineCategory } from '../utils/vocabulary'
+import { routineCategories, type RoutineCategory } from '../utils/vocabulary'
 import { routineStepsSchema } from './routine-steps'
 
-export { routineCategories, routineCategoryLabels, type RoutineCategory }
+export { routineCategories, type RoutineCategory }
 
 export const routineMetaSchema = z.object({
   title: z.string({ error: 'Give the routine a title' }).trim().min(1, 'Give the routine a title').max(120, 'Titles are at most 120 characters'),
-  category: z.enum(routineCategories, { error: 'Pick a category' }),
+  category: z.enum(routineCategories.values, { error: 'Pick a category' }),
   description: z.string().trim().max(2000, 'The description is at most 2,000 characters').default(''),
 })
 
@@ -18,7 +18,7 @@ export const routineUpdateSchema = routineInputSchema.extend({
 
 export const routineListQuerySchema = z.object({
   q: z.string().trim().max(100, 'Search is at most 100 characters').optional(),
-  category: z.enum(routineCategories, { error: 'Unknown category' }).optional().or(z.literal('').transform(() => undefined)),
+  category: z.enum(routineCategories.values, { error: 'Unknown category' }).optional().or(z.literal('').transform(() => undefined)),
   archived: z.enum(['true', 'false']).optional().transform(value => value === 'true'),
 })
 

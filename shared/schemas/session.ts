@@ -37,7 +37,7 @@ export const entryPatchSchema = entryValuesSchema.refine(value => Object.keys(va
 export const finishSessionSchema = z.object({
   sessionRpe: rpe,
   pain: z.number({ error: 'Pain must be a number' }).int('Pain is a whole number from 0 to 10').min(0, 'Pain runs from 0 to 10').max(10, 'Pain runs from 0 to 10').optional(),
-  painArea: z.enum(bodyAreas, { error: 'Pick a body area from the list' }).optional(),
+  painArea: z.enum(bodyAreas.values, { error: 'Pick a body area from the list' }).optional(),
   /** The pain came on suddenly or is sharp: shows the urgent guidance whatever the score. */
   sudden: z.boolean({ error: 'Say yes or no' }).optional(),
   note: z.string().trim().max(2000, 'Notes are at most 2,000 characters').optional(),

@@ -5,5 +5,5 @@ import { shownStatuses, type ShownStatus } from './vocabulary'
 
 export function shownStatus(status: string, date: string, athleteToday: string): ShownStatus {
   if (status === 'planned') return date < athleteToday ? 'overdue' : 'planned'
-  return (shownStatuses as readonly string[]).includes(status) ? status as ShownStatus : 'planned'
+  return (shownStatuses.values as readonly string[]).includes(status) ? status as ShownStatus : 'planned'
 }

@@ -1,23 +1,16 @@
 import { MAX_REPEAT, MAX_STEP_SECONDS, type BlockStep, type RoutineStep, type SetsStep } from '../schemas/routine-steps'
 import { buildTimeline } from './timeline'
+import { defineVocabulary } from './vocabulary'
 
 // Week-by-week changes to a routine across a training block. Pure: the planner, the preview and the
 // tests all call these. Progressions (add a round a week, add load in plate steps), lighter weeks and
 // a taper are common coaching practice; no published source is claimed for any of their numbers.
 
-export const progressionFields = ['rounds', 'reps', 'sets', 'seconds', 'meters', 'loadKg', 'percent1rm', 'rpe'] as const
-export type ProgressionField = typeof progressionFields[number]
-
-export const progressionFieldLabels: Record<ProgressionField, string> = {
-  rounds: 'Rounds',
-  reps: 'Reps per set',
-  sets: 'Sets',
-  seconds: 'Seconds of work',
-  meters: 'Metres of work',
-  loadKg: 'Load (kg)',
-  percent1rm: '% of 1RM',
-  rpe: 'Target effort (RPE)',
-}
+export const progressionFields = defineVocabulary({
+  rounds: 'Rounds', reps: 'Reps per set', sets: 'Sets', seconds: 'Seconds of work',
+  meters: 'Metres of work', loadKg: 'Load (kg)', percent1rm: '% of 1RM', rpe: 'Target effort (RPE)',
+})
+export type ProgressionField = typeof progressionFields.values[number]
 
 /** The most each field may ever reach: the step tree's own limits, with %1RM held to 100. */
 export const progressionLimits: Record<ProgressionField, { min: number, max: number }> = {
@@ -61,9 +54,8 @@ export interface Taper {
   factor: number
 }
 
-export type WeekKind = 'regular' | 'lighter' | 'taper'
-
-export const weekKindLabels: Record<WeekKind, string> = { regular: 'regular week', lighter: 'lighter week', taper: 'taper week' }
+export const weekKinds = defineVocabulary({ regular: 'regular week', lighter: 'lighter week', taper: 'taper week' })
+export type WeekKind = typeof weekKinds.values[number]
 
 export interface BlockShape {
   weeks: number
@@ -268,7 +260,7 @@ export function numbersOf(steps: readonly RoutineStep[]): Map<string, number> {
   const numbers = new Map<string, number>()
   const visit = (list: readonly RoutineStep[]) => {
     for (const step of list) {
-      for (const field of progressionFields) {
+      for (const field of progressionFields.values) {
         const value = baseValue(step, field)
         if (value !== undefined) numbers.set(`${step.id}:${field}`, value)
       }
@@ -341,7 +333,7 @@ export function ruleProblem(steps: readonly RoutineStep[], rule: ProgressionRule
   const step = findStep(steps, rule.stepId)
   if (!step) return 'This step is not in the routine'
   const base = baseValue(step, rule.field)
-  if (base === undefined) return `This step has no ${progressionFieldLabels[rule.field].toLowerCase()} to change`
+  if (base === undefined) return `This step has no ${progressionFields.labels[rule.field].toLowerCase()} to change`
   if (rule.mode === 'percent' && rule.field !== 'loadKg') return 'Only a kg load can grow by a percentage'
   const { min, max } = progressionLimits[rule.field]
   if (rule.cap !== undefined && (rule.cap > max || rule.cap < min)) return `The cap must be between ${min} and ${max}`
@@ -364,7 +356,7 @@ export function progressableSteps(steps: readonly RoutineStep[]): ProgressableSt
   const found: ProgressableStep[] = []
   const visit = (list: readonly RoutineStep[], depth: number) => {
     for (const step of list) {
-      const fields = progressionFields.filter(field => baseValue(step, field) !== undefined)
+      const fields = progressionFields.values.filter(field => baseValue(step, field) !== undefined)
       if (fields.length) found.push({ stepId: step.id, depth, step, fields })
       if (step.type === 'repeat') visit(step.steps, depth + 1)
     }

@@ -1,17 +1,8 @@
-import type { Measure, PaceZone, RoutineStep, Target } from '../schemas/routine-steps'
+import type { Measure, RoutineStep, Target } from '../schemas/routine-steps'
 import { formatDuration } from './pace'
-import { blockKindLabels, effortWords, plural, stepTypeLabels } from './vocabulary'
+import { blockKinds, effortWords, paceZones, plural, stepTypeLabels } from './vocabulary'
 
 // Plain words for the parts of a step, shared by the builder, the preview and the print card.
-
-export const paceZoneLabels: Record<PaceZone, string> = {
-  easy: 'Easy pace',
-  marathon: 'Marathon pace',
-  threshold: 'Threshold pace',
-  tenK: '10K pace',
-  fiveK: '5K pace',
-  mile: 'Mile pace',
-}
 
 export function formatSeconds(seconds: number): string {
   if (seconds < 60) return `${Math.round(seconds)} s`
@@ -30,7 +21,7 @@ export function describeMeasure(measure: Measure): string {
 
 export function describeTarget(target: Target | undefined): string {
   if (!target) return ''
-  if (target.type === 'pace') return paceZoneLabels[target.zone]
+  if (target.type === 'pace') return paceZones.labels[target.zone]
   if (target.type === 'effort') return `effort ${target.rpe} of 10 (${effortWords(target.rpe).toLowerCase()})`
   if (target.type === 'load') return `${target.kg} kg`
   return `${target.percent} % of 1RM`
@@ -48,7 +39,7 @@ export function describeStep(step: RoutineStep, exerciseName?: (id: number) => s
   if (step.type === 'sets') {
     return [name ?? 'Sets', `${step.sets} × ${describeMeasure(step.perSet)}`, describeTarget(step.target)].filter(Boolean).join(' · ')
   }
-  return [blockKindLabels[step.kind], name, describeMeasure(step.measure), describeTarget(step.target), step.grade ? formatGrade(step.grade) : '']
+  return [blockKinds.labels[step.kind], name, describeMeasure(step.measure), describeTarget(step.target), step.grade ? formatGrade(step.grade) : '']
     .filter(Boolean).join(' · ')
 }
 
@@ -57,7 +48,7 @@ export function stepName(step: RoutineStep, exerciseName?: (id: number) => strin
   if (step.type === 'repeat') return plural(step.times, 'round')
   const name = step.exerciseId ? exerciseName?.(step.exerciseId) : undefined
   if (step.type === 'sets') return name ? `${name} sets` : stepTypeLabels.sets
-  return name ? `${blockKindLabels[step.kind]}: ${name}` : blockKindLabels[step.kind]
+  return name ? `${blockKinds.labels[step.kind]}: ${name}` : blockKinds.labels[step.kind]
 }
 
 /** What the card shows under the step's name: the numbers, without repeating the kind or exercise. */

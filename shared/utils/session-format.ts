@@ -1,4 +1,4 @@
-import { bodyAreaLabel, effortWords, plural } from './vocabulary'
+import { bodyAreas, effortWords, plural } from './vocabulary'
 import { formatPace, type PaceUnit } from './pace'
 import type { PlanSegment } from './session-plan'
 
@@ -50,5 +50,5 @@ export function positionText(segment: PlanSegment) {
 }
 
 export function areaLabel(area: string | null | undefined) {
-  return bodyAreaLabel(area)
+  return bodyAreas.label(area)
 }

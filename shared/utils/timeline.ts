@@ -2,7 +2,7 @@ import { MAX_SEGMENTS, type Measure, type RoutineStep, type Target } from '../sc
 import { checkNumber } from './numbers'
 import { hillPaceForEffort } from './pace'
 import type { TrainingPaces } from './pace'
-import { blockKindLabels, type BlockKind } from './vocabulary'
+import { blockKinds, type BlockKind } from './vocabulary'
 
 // Assumed for distance steps whose pace is unknown: no target pace, or no benchmark race for the athlete.
 export const DEFAULT_PACE_S_PER_KM = 360
@@ -115,7 +115,7 @@ function expandSteps(steps: readonly RoutineStep[], parentPath: (string | number
         stepId: step.id,
         path,
         kind: step.kind,
-        label: blockKindLabels[step.kind],
+        label: blockKinds.labels[step.kind],
         measure: step.measure,
         ...timing(step.measure, step.target, step.grade, context),
         ...optional({ exerciseId: step.exerciseId, target: step.target, grade: step.grade, note: step.note }),

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest'
 import { errorUnder } from '#shared/utils/errors'
-import { bodyAreaOptions, bodyAreas, choices, exerciseCategories, exerciseCategoryLabels } from '#shared/utils/vocabulary'
 import { benchmarkDistances, MARATHON_M, MILE_M } from '#shared/utils/pace'
 
 describe('errorUnder', () => {
@@ -19,15 +18,6 @@ describe('errorUnder', () => {
   it('takes the first of several keys that has a message', () => {
     expect(errorUnder(fields, 'squadId', 'athleteIds')).toBe('Choose at least one athlete')
     expect(errorUnder(fields, 'dates')).toBeUndefined()
-  })
-})
-
-describe('choices', () => {
-  it('pairs each value with its label, in the vocabulary order', () => {
-    const options = choices(exerciseCategories, exerciseCategoryLabels)
-    expect(options.map(option => option.value)).toEqual([...exerciseCategories])
-    expect(options.every(option => option.label === exerciseCategoryLabels[option.value])).toBe(true)
-    expect(bodyAreaOptions).toHaveLength(bodyAreas.length)
   })
 })
 

@@ -1,19 +1,46 @@
 import { describe, expect, it } from 'vitest'
 import { isUnder18 } from '../../shared/utils/age'
 import { needsUrgentGuidance, urgentGuidance } from '../../shared/utils/urgent-guidance'
-import { bodyAreaLabel, bodyAreas, effortScale, effortWords, exerciseCategoryLabel, plural, routineCategoryLabel } from '../../shared/utils/vocabulary'
+import { bodyAreas, defineVocabulary, effortScale, effortWords, exerciseCategories, plural, routineCategories } from '../../shared/utils/vocabulary'
+
+describe('defineVocabulary', () => {
+  const sizes = defineVocabulary({ small: 'Small', extra_large: 'Extra large', medium: 'Medium' })
+
+  it('keeps the label map\'s order for values and options', () => {
+    expect(sizes.values).toEqual(['small', 'extra_large', 'medium'])
+    expect(sizes.options).toEqual([
+      { value: 'small', label: 'Small' },
+      { value: 'extra_large', label: 'Extra large' },
+      { value: 'medium', label: 'Medium' },
+    ])
+  })
+
+  it('names known keys, tidies unknown ones and shows nothing for no key', () => {
+    expect(sizes.label('extra_large')).toBe('Extra large')
+    expect(sizes.label('very_small')).toBe('Very small')
+    expect(sizes.label('toString')).toBe('ToString')
+    expect(sizes.label(null)).toBe('')
+    expect(sizes.label('')).toBe('')
+  })
+
+  it('gives every vocabulary an option per value, labelled from its map', () => {
+    expect(exerciseCategories.options.map(option => option.value)).toEqual(exerciseCategories.values)
+    expect(exerciseCategories.options.every(option => option.label === exerciseCategories.labels[option.value])).toBe(true)
+    expect(bodyAreas.options).toHaveLength(bodyAreas.values.length)
+  })
+})
 
 describe('vocabulary', () => {
   it('has words for every body area and never shows a raw key', () => {
-    for (const area of bodyAreas) expect(bodyAreaLabel(area)).not.toMatch(/_/)
-    expect(bodyAreaLabel('quad')).toBe('Thigh (quadriceps)')
-    expect(bodyAreaLabel('lower_back')).toBe('Lower back')
-    expect(bodyAreaLabel('some_new_area')).toBe('Some new area')
+    for (const area of bodyAreas.values) expect(bodyAreas.label(area)).not.toMatch(/_/)
+    expect(bodyAreas.label('quad')).toBe('Thigh (quadriceps)')
+    expect(bodyAreas.label('lower_back')).toBe('Lower back')
+    expect(bodyAreas.label('some_new_area')).toBe('Some new area')
   })
 
   it('names exercise and routine categories with the same words', () => {
-    expect(exerciseCategoryLabel('hill')).toBe(routineCategoryLabel('hills'))
-    expect(exerciseCategoryLabel('strength')).toBe(routineCategoryLabel('strength'))
+    expect(exerciseCategories.label('hill')).toBe(routineCategories.label('hills'))
+    expect(exerciseCategories.label('strength')).toBe(routineCategories.label('strength'))
   })
 
   it('has one effort scale with words for every point from 0 to 10', () => {

@@ -3,16 +3,8 @@ import { exerciseListQuerySchema } from '#shared/schemas/exercise'
 import { exercises, mediaObjects } from '../../db/schema'
 
 const listedColumns = {
-  id: exercises.id,
-  name: exercises.name,
-  category: exercises.category,
-  summary: exercises.summary,
-  cues: exercises.cues,
-  equipment: exercises.equipment,
-  cautions: exercises.cautions,
-  clipId: exercises.clipId,
+  ...exerciseListColumns,
   posterId: exercises.posterId,
-  archivedAt: exercises.archivedAt,
   createdAt: exercises.createdAt,
   updatedAt: exercises.updatedAt,
 }

@@ -2,7 +2,7 @@ import { and, asc, eq, gte, isNull, lte } from 'drizzle-orm'
 import ical, { ICalCalendarMethod } from 'ical-generator'
 import { assignments, calendarFeeds, memberships, teams, users } from '../../db/schema'
 import { shownStatus } from '#shared/utils/assignment-status'
-import { routineCategoryLabel, statusLabels } from '#shared/utils/vocabulary'
+import { routineCategories, shownStatuses } from '#shared/utils/vocabulary'
 import { addDays, dayToUtcDate, isCalendarDay, todayIn } from '#shared/utils/dates'
 import { blockWeekLine } from '#shared/utils/block-week'
 
@@ -45,7 +45,7 @@ export default defineEventHandler(async (event) => {
     }
   }
   function addToCalendar(row: typeof rows[number]) {
-    const status = statusLabels[shownStatus(row.status, row.date, today)]
+    const status = shownStatuses.labels[shownStatus(row.status, row.date, today)]
     const url = `${appUrl}/session/${row.id}`
     if (!isCalendarDay(row.date)) throw new Error(`not a calendar day: ${row.date}`)
     calendar.createEvent({
@@ -57,13 +57,13 @@ export default defineEventHandler(async (event) => {
       lastModified: row.updatedAt,
       summary: row.snapshot.title,
       description: [
-        `${routineCategoryLabel(row.snapshot.category)} · ${status}`,
+        `${routineCategories.label(row.snapshot.category)} · ${status}`,
         row.snapshot.block ? blockWeekLine(row.snapshot.block) : '',
         row.note ? `Note from your coach: ${row.note}` : '',
         url,
       ].filter(Boolean).join('\n\n'),
       url,
-      categories: [{ name: routineCategoryLabel(row.snapshot.category) }],
+      categories: [{ name: routineCategories.label(row.snapshot.category) }],
     })
   }
   setResponseHeader(event, 'content-type', 'text/calendar; charset=utf-8')

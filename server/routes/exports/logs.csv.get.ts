@@ -2,7 +2,7 @@ import Papa from 'papaparse'
 import { exportLogsQuerySchema } from '#shared/schemas/insights'
 import { addDays, daysBetween, startOfWeek, todayIn } from '#shared/utils/dates'
 import { RATIO_LOOKBACK_DAYS, weeklyLoads } from '#shared/utils/insights'
-import { bodyAreaLabel } from '#shared/utils/vocabulary'
+import { bodyAreas } from '#shared/utils/vocabulary'
 
 const MAX_RANGE_DAYS = 3 * 366
 
@@ -49,7 +49,7 @@ export default defineEventHandler(async (event) => {
     const rows = await sessionRows(db, caller.teamId, { athleteIds: ids, from, to })
     csv = Papa.unparse({
       fields: ['athlete', 'session_id', 'date', 'routine', 'duration_min', 'session_rpe', 'load', 'pain', 'pain_area', 'note'],
-      data: rows.map(row => [row.athleteName, row.id, row.day, row.routine, row.durationMin ?? '', row.sessionRpe ?? '', row.load ?? '', row.pain ?? '', bodyAreaLabel(row.painArea), row.note]),
+      data: rows.map(row => [row.athleteName, row.id, row.day, row.routine, row.durationMin ?? '', row.sessionRpe ?? '', row.load ?? '', row.pain ?? '', bodyAreas.label(row.painArea), row.note]),
     }, { escapeFormulae: true })
   }
   const who = athleteId ? `athlete-${athleteId}` : 'team'
