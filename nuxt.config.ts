@@ -36,7 +36,8 @@ export default defineNuxtConfig({
     // the browser, so it carries no one's data and reads everything from the worker's cache.
     '/offline-shell': { ssr: false },
     // Private answers are never stored by browsers or proxies.
-    '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': 'default-src \'none\'; frame-ancestors \'none\'' } },
+    // JSON answers carry no markup, so they need no CSP nonce (nuxt-security makes one per request otherwise).
+    '/api/**': { headers: { 'cache-control': 'no-store', 'content-security-policy': 'default-src \'none\'; frame-ancestors \'none\'' }, security: { nonce: false } },
     '/exports/**': { headers: { 'cache-control': 'no-store' } },
   },
   // Speed (docs/performance.md): links fetch their page's code when touched or focused, not as soon as

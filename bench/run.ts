@@ -27,9 +27,22 @@ function run(command: string, args: string[], options: { cwd?: string, env?: Rec
   })
 }
 
-interface Measured { path: string, who: string, requestsPerSecond: number, p50: number, p99: number, non2xx: number, bytes: number }
+interface Measured { path: string, who: string, requestsPerSecond: number, p50: number, p99: number, non2xx: number, bytes: number, cpuMsPerRequest?: number }
 
-async function measure(url: string, path: string, who: string, cookie?: string): Promise<Measured> {
+/** CPU time (user + system) a process has used so far, in ms; Linux only (undefined elsewhere). */
+function cpuMsOf(pid: number | undefined) {
+  if (!pid || !existsSync(`/proc/${pid}/stat`)) return undefined
+  // Fields after the command name (which is in parentheses): utime and stime are the 12th and 13th, in clock ticks.
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ')
+  return (Number(fields[11]) + Number(fields[12])) * 10
+}
+
+/**
+ * Requests per second with CONNECTIONS connections, and the server's CPU time per request: on a machine
+ * shared with other work the throughput swings with the load, the CPU a request costs much less.
+ */
+async function measure(url: string, path: string, who: string, cookie?: string, pid?: number): Promise<Measured> {
+  const cpuBefore = cpuMsOf(pid)
   const result = await autocannon({ url: `${url}${path}`, connections: CONNECTIONS, duration: SECONDS, headers: cookie ? { cookie, accept: path.startsWith('/api') ? 'application/json' : 'text/html' } : {} })
   return {
     path,
@@ -39,6 +52,7 @@ async function measure(url: string, path: string, who: string, cookie?: string):
     p99: result.latency.p99,
     non2xx: result.non2xx,
     bytes: result.requests.total ? result.throughput.total / result.requests.total : 0,
+    cpuMsPerRequest: cpuBefore === undefined || !result.requests.total ? undefined : (cpuMsOf(pid)! - cpuBefore) / result.requests.total,
   }
 }
 
@@ -207,9 +221,9 @@ async function main() {
       ['/today', 'athlete (page)', athlete.cookie],
     ]
     console.log(`Measuring ${paths.length + 1} paths, ${SECONDS} s each with ${CONNECTIONS} connections…`)
-    const yardstick = PARTS.has('reads') ? await measure(bareUrl, '/', 'bare Nitro route') : undefined
+    const yardstick = PARTS.has('reads') ? await measure(bareUrl, '/', 'bare Nitro route', undefined, bareChild.pid) : undefined
     const rows: Measured[] = yardstick ? [yardstick] : []
-    if (yardstick) for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie))
+    if (yardstick) for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie, app.child.pid))
 
     const entries = PARTS.has('entries') ? await logSets(stack.databaseUrl, app.url) : undefined
 
@@ -223,10 +237,10 @@ async function main() {
     console.log('')
     console.log(`Switchback benchmark · ${new Date().toISOString().slice(0, 10)} · ${SECONDS} s per path, ${CONNECTIONS} connections`)
     console.log('')
-    console.log('| path | caller | req/s | vs bare | p50 ms | p99 ms | non-2xx | bytes/resp |')
-    console.log('|---|---|---|---|---|---|---|---|')
+    console.log('| path | caller | req/s | vs bare | p50 ms | p99 ms | non-2xx | bytes/resp | server CPU ms/req |')
+    console.log('|---|---|---|---|---|---|---|---|---|')
     for (const row of rows) {
-      console.log(`| ${row.path} | ${row.who} | ${row.requestsPerSecond.toFixed(0)} | ${(row.requestsPerSecond / yardstick!.requestsPerSecond).toFixed(3)} | ${row.p50} | ${row.p99} | ${row.non2xx} | ${row.bytes.toFixed(0)} |`)
+      console.log(`| ${row.path} | ${row.who} | ${row.requestsPerSecond.toFixed(0)} | ${(row.requestsPerSecond / yardstick!.requestsPerSecond).toFixed(3)} | ${row.p50} | ${row.p99} | ${row.non2xx} | ${row.bytes.toFixed(0)} | ${row.cpuMsPerRequest?.toFixed(3) ?? '—'} |`)
     }
     console.log('')
     if (entries) console.log(`Entries: ${entries.acknowledged} acknowledged · ${entries.stored} stored · ${entries.perSecond.toFixed(0)} acknowledged writes/s · p99 ${entries.p99.toFixed(1)} ms (50 athletes at once)`)

@@ -3,6 +3,7 @@ import { dirname, resolve } from 'node:path'
 import { createClient, type Client } from '@libsql/client'
 import { drizzle, type LibSQLDatabase } from 'drizzle-orm/libsql'
 import { migrate } from 'drizzle-orm/libsql/migrator'
+import { withPreparedReads } from './prepared-reads'
 import { recyclingClient } from './recycling-client'
 import * as schema from './schema'
 
@@ -27,12 +28,21 @@ export async function openDatabase(url = defaultDatabaseUrl, authToken?: string)
   // connection that ran it: the busy timeout goes in the options so that every connection waits for a
   // lock instead of failing at once. WAL is a property of the file, so setting it once is enough.
   const connect = () => createClient({ url, authToken, timeout: BUSY_TIMEOUT_MS })
-  const client = url.startsWith('file:') ? recyclingClient(connect) : connect()
+  const file = localFilePath(url)
+  const client = file ? recyclingClient(() => withPreparedReads(connect(), file, BUSY_TIMEOUT_MS)) : url.startsWith('file:') ? recyclingClient(connect) : connect()
   if (url.startsWith('file:')) {
     await client.execute('PRAGMA journal_mode = WAL')
   }
   await client.execute('PRAGMA foreign_keys = ON')
   return drizzle(client, { schema }) as Database
+}
+
+/** The file a plain `file:` URL names (no query options, not in memory), for a connection of our own. */
+function localFilePath(url: string) {
+  if (!url.startsWith('file:') || url.includes('?')) return undefined
+  let path = url.slice('file:'.length)
+  if (path.startsWith('//')) path = path.slice(2).replace(/^localhost(?=\/)/, '')
+  return path && path !== ':memory:' ? path : undefined
 }
 
 /** The source folder in development and tests; the built server's own copy in production. */
