@@ -5,6 +5,7 @@ import type { SnapshotBlockWeek } from '#shared/types/domain'
 import { SessionClock, type ClockChange, type ClockSnapshot, type ClockState } from '#shared/utils/session-clock'
 import type { PlanSegment, SessionPlan } from '#shared/utils/session-plan'
 import { carryLoadForward } from '#shared/utils/session-load'
+import { plannedBeeps, type PlannedBeep } from '#shared/utils/session-beeps'
 import { useSessionOutboxStore } from './sessionOutbox'
 
 export interface PlayerPlan {
@@ -75,6 +76,8 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   const timings = ref<ChangeTiming[]>([])
   let clock: SessionClock | null = null
   let now: () => number = () => performance.now()
+  /** Routine seconds per real second (the test-only speed switch); the clock's line is performance.now × speed. */
+  let speed = 1
   let listeners: ((changes: ClockChange[]) => void)[] = []
   /** Set at sign-out: the run on screen must not write itself back to the device as the page goes. */
   let forgotten = false
@@ -114,7 +117,7 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   function open(plan: PlayerPlan, options: { speed?: number } = {}) {
     outbox.load()
     forgotten = false
-    const speed = options.speed && options.speed > 0 ? options.speed : 1
+    speed = options.speed && options.speed > 0 ? options.speed : 1
     now = speed === 1 ? () => performance.now() : () => performance.now() * speed
     data.value = markRaw(plan)
     timings.value = []
@@ -213,6 +216,22 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
     if (changes.length) handle(changes)
   }
 
+  /**
+   * The beeps due in the next `horizonMs` of real time, with their times on performance.now's line, worked
+   * out from the clock's absolute segment ends: they can be put on the audio clock ahead of time.
+   */
+  function upcomingBeeps(horizonMs: number): PlannedBeep[] {
+    if (!clock) return []
+    const realNow = performance.now()
+    return plannedBeeps(clock.upcomingSegments(), { from: realNow * speed, until: (realNow + horizonMs) * speed })
+      .map(beep => ({ ...beep, at: beep.at / speed, boundaryAt: beep.boundaryAt / speed }))
+  }
+
+  /** A moment of the clock's line on performance.now's line. */
+  function realTime(clockMs: number) {
+    return clockMs / speed
+  }
+
   /** Records when a change due at `scheduledAt` reached the screen (for the timing figures). */
   function recordShown(change: ClockChange) {
     timings.value.push({ index: change.to, scheduledAt: change.scheduledAt, shownAt: now() })
@@ -278,6 +297,6 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   return {
     data, clientId, acknowledged, started, resumed, finishedSent, drafts, logged, state, timings,
     segments, current, next, finished, loggedList, loggableCount,
-    open, reset, onChanges, tick, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist, forget,
+    open, reset, onChanges, tick, upcomingBeeps, realTime, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist, forget,
   }
 })
