@@ -77,6 +77,12 @@ export default defineNuxtConfig({
   typescript: { strict: true },
   telemetry: false,
   hooks: {
+    // No prefetch links in the HTML for code the page may load later (runner, finish form, other pages):
+    // on a phone they competed with the page's own first paint, and the service worker keeps every chunk
+    // for offline use once installed anyway.
+    'build:manifest'(manifest) {
+      for (const chunk of Object.values(manifest)) chunk.prefetch = false
+    },
     // Our error handler runs first and only reshapes errors (database faults → 503, request ids);
     // Nuxt's and Nitro's own handlers still render them.
     'nitro:config'(nitroConfig) {
