@@ -5,7 +5,6 @@ import type { SnapshotBlockWeek } from '#shared/types/domain'
 import { SessionClock, type ClockChange, type ClockSnapshot, type ClockState } from '#shared/utils/session-clock'
 import type { PlanSegment, SessionPlan } from '#shared/utils/session-plan'
 import { carryLoadForward } from '#shared/utils/session-load'
-import { plannedBeeps, type PlannedBeep } from '#shared/utils/session-beeps'
 import { useSessionOutboxStore } from './sessionOutbox'
 
 export interface PlayerPlan {
@@ -216,15 +215,14 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
     if (changes.length) handle(changes)
   }
 
-  /**
-   * The beeps due in the next `horizonMs` of real time, with their times on performance.now's line, worked
-   * out from the clock's absolute segment ends: they can be put on the audio clock ahead of time.
-   */
-  function upcomingBeeps(horizonMs: number): PlannedBeep[] {
-    if (!clock) return []
-    const realNow = performance.now()
-    return plannedBeeps(clock.upcomingSegments(), { from: realNow * speed, until: (realNow + horizonMs) * speed })
-      .map(beep => ({ ...beep, at: beep.at / speed, boundaryAt: beep.boundaryAt / speed }))
+  /** The current timed segment and those straight after it, on the clock's line (for the beeps ahead). */
+  function upcomingSegments() {
+    return clock?.upcomingSegments() ?? []
+  }
+
+  /** A moment of performance.now's line on the clock's line. */
+  function clockTime(realMs: number) {
+    return realMs * speed
   }
 
   /** A moment of the clock's line on performance.now's line. */
@@ -297,6 +295,6 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   return {
     data, clientId, acknowledged, started, resumed, finishedSent, drafts, logged, state, timings,
     segments, current, next, finished, loggedList, loggableCount,
-    open, reset, onChanges, tick, upcomingBeeps, realTime, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist, forget,
+    open, reset, onChanges, tick, upcomingSegments, clockTime, realTime, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist, forget,
   }
 })
