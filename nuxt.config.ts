@@ -1,6 +1,11 @@
+import { existsSync } from 'node:fs'
 import { cp, writeFile } from 'node:fs/promises'
 import { resolve } from 'node:path'
 import { buildStampFile, sourceHash } from './scripts/source-hash'
+
+// Nuxt and unhead each install the same hookable 6 under their own folder, so the browser got it twice;
+// nitropack keeps the hoisted hookable 5. Nuxt's copy serves both in the app's bundle when it is there.
+const nuxtHookable = resolve(import.meta.dirname, 'node_modules/nuxt/node_modules/hookable')
 
 export default defineNuxtConfig({
   // Root-level layout: keep Nuxt from switching to an `app/` folder if one ever appears.
@@ -42,8 +47,10 @@ export default defineNuxtConfig({
   },
   // Speed (docs/performance.md): links fetch their page's code when touched or focused, not as soon as
   // they scroll into view, so a phone opening one page does not download the whole navigation's pages;
-  // and shared modules smaller than ~8 KB are merged into their neighbours instead of each being a request.
-  experimental: { defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } } },
+  // and shared modules smaller than ~20 KB are merged into their neighbours instead of each being a request.
+  // No app manifest and no payload files: nothing here reads route rules in the browser, reloads on a new
+  // deployment (the service worker prompts for updates) or prerenders pages, so that code leaves the first load.
+  experimental: { appManifest: false, payloadExtraction: false, defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } } },
   compatibilityDate: '2026-01-01',
   nitro: {
     // Scripts, styles and fonts go out pre-compressed (brotli and gzip), chosen by Accept-Encoding.
@@ -60,10 +67,23 @@ export default defineNuxtConfig({
       },
     },
   },
-  vite: { build: { rollupOptions: { output: { experimentalMinChunkSize: 8_000 } } } },
+  vite: {
+    // Every component here is written with <script setup>: Vue's options API (data, methods, mixins) is left
+    // out of the bundle.
+    vue: { features: { optionsAPI: false } },
+    // nuxt-auth-utils' client plugin brings its own unctx 3 for one helper the app's unctx 2 has too.
+    resolve: { dedupe: ['unctx'], alias: existsSync(nuxtHookable) ? { hookable: nuxtHookable } : {} },
+    build: { rollupOptions: { output: { experimentalMinChunkSize: 20_000 } } },
+  },
   typescript: { strict: true },
   telemetry: false,
   hooks: {
+    // No prefetch links in the HTML for code the page may load later (runner, finish form, other pages):
+    // on a phone they competed with the page's own first paint, and the service worker keeps every chunk
+    // for offline use once installed anyway.
+    'build:manifest'(manifest) {
+      for (const chunk of Object.values(manifest)) chunk.prefetch = false
+    },
     // Our error handler runs first and only reshapes errors (database faults → 503, request ids);
     // Nuxt's and Nitro's own handlers still render them.
     'nitro:config'(nitroConfig) {

@@ -9,7 +9,7 @@ import autocannon from 'autocannon'
 import { createClient } from '@libsql/client'
 import type { Page } from 'playwright-core'
 import { ApiClient } from '../tests/support/client'
-import { launchBrowser, newContext, readStepTimings, watchStepChanges } from '../tests/support/browser'
+import { launchBrowser, newContext, readScheduledBeeps, readStepTimings, watchStepChanges } from '../tests/support/browser'
 import { logEverything, seedLoggingAthletes } from '../tests/support/logging-athletes'
 import { freePort, root, spawnApp, startStack, waitForServer } from '../tests/support/stack'
 
@@ -104,7 +104,9 @@ async function playerScripts(url: string, cookie: string, path: string) {
 
 /**
  * The timer in Chromium: a session of six timed steps (2 and 3 s) run in real time; for each step change, how
- * long after its scheduled moment the player rendered it (its own record) and the page's DOM showed it.
+ * far from the boundary its beep was put on the audio clock (read again from the audio clock when the player
+ * reached the boundary), and how long after it the player rendered the change (its own record) and the page's
+ * DOM showed it.
  */
 async function timerFigures(url: string, databaseUrl: string, cookie: string, email: string) {
   const db = createClient({ url: databaseUrl, timeout: 5000 })
@@ -127,8 +129,20 @@ async function timerFigures(url: string, databaseUrl: string, cookie: string, em
     const start = result.timings[0]!.scheduledAt - durations[0]! * 1000
     const rendered = result.timings.map(timing => timing.shownAt - timing.scheduledAt)
     const inDom = result.seen.filter(item => item.index > 0).map(item => item.at - (start + durations.slice(0, item.index).reduce((sum, seconds) => sum + seconds * 1000, 0)))
+    const beeps = await readScheduledBeeps(page)
+    const beepOffsets = result.timings.flatMap((timing) => {
+      const beep = beeps.find(item => item.kind === 'change' && item.boundary === timing.index - 1 && !item.cancelled)
+      return beep?.heardAt === undefined ? [] : [beep.heardAt - timing.scheduledAt]
+    })
     const stats = (values: number[]) => ({ max: Math.max(...values), mean: values.reduce((sum, item) => sum + item, 0) / values.length })
-    return { changes: rendered.length, rendered: stats(rendered), inDom: stats(inDom) }
+    return {
+      changes: rendered.length,
+      rendered: stats(rendered),
+      inDom: stats(inDom),
+      beeps: beepOffsets.length,
+      beepOffset: beepOffsets.length ? { max: Math.max(...beepOffsets.map(Math.abs)), mean: beepOffsets.reduce((sum, item) => sum + Math.abs(item), 0) / beepOffsets.length } : undefined,
+      rescheduled: beeps.filter(beep => beep.cancelled).length,
+    }
   })
 }
 
@@ -253,8 +267,9 @@ async function main() {
       else console.log(`Lighthouse ${score.path}: performance ${score.performance} · accessibility ${score.accessibility} · best practices ${score.bestPractices} · first paint ${(score.firstPaintMs / 1000).toFixed(1)} s · largest paint ${(score.largestPaintMs / 1000).toFixed(1)} s · blocking ${score.blockingMs.toFixed(0)} ms · ${score.transferKb.toFixed(0)} KB`)
     }
     if (timer) {
-      console.log(`Timer: ${timer.changes} step changes · rendered by the player after their scheduled moment max ${timer.rendered.max.toFixed(1)} ms, mean ${timer.rendered.mean.toFixed(1)} ms · seen in the DOM max ${timer.inDom.max.toFixed(1)} ms, mean ${timer.inDom.mean.toFixed(1)} ms (one frame ≈ 16.7 ms)`)
-      console.log('Timer: beeps are played when the change is rendered (the audio clock\'s current time), not scheduled ahead at the boundary; no separate beep figure.')
+      if (timer.beepOffset) console.log(`Timer: beeps on the audio clock vs their boundaries (${timer.beeps} of ${timer.changes}): max ${timer.beepOffset.max.toFixed(1)} ms, mean ${timer.beepOffset.mean.toFixed(1)} ms (absolute) · ${timer.rescheduled} moved or cancelled along the way`)
+      else console.log(`Timer: no beep was scheduled (the audio context did not run in this browser)`)
+      console.log(`Timer: display lag over ${timer.changes} step changes · rendered by the player max ${timer.rendered.max.toFixed(1)} ms, mean ${timer.rendered.mean.toFixed(1)} ms · seen in the DOM max ${timer.inDom.max.toFixed(1)} ms, mean ${timer.inDom.mean.toFixed(1)} ms (one frame ≈ 16.7 ms)`)
     }
     await app.stop()
   }

@@ -2,23 +2,34 @@ import { formatDate, pickLocale, pickTimeZone, type DatePrefs, type DateStyle } 
 
 const TIME_ZONE_COOKIE = 'switchback-tz'
 
+// Read and written by hand rather than with useCookie, whose cookie library would join every page's first load.
+function readZoneCookie(header: string | undefined) {
+  const value = header?.split(/;\s*/).find(part => part.startsWith(`${TIME_ZONE_COOKIE}=`))?.slice(TIME_ZONE_COOKIE.length + 1)
+  if (!value) return null
+  try {
+    return decodeURIComponent(value)
+  }
+  catch {
+    return null
+  }
+}
+
 /**
  * Dates in the reader's locale and time zone. The server picks both from the request (Accept-Language and
  * a cookie the browser set on an earlier visit) and hands them to the browser in the payload, so the
  * hydrated page matches; once mounted, the browser corrects the zone if it differs and remembers it.
  */
 export function useDates() {
-  const cookie = useCookie<string | null>(TIME_ZONE_COOKIE, { sameSite: 'lax', maxAge: 60 * 60 * 24 * 365 })
   const prefs = useState<DatePrefs>('date-prefs', () => ({
     locale: pickLocale(import.meta.server ? useRequestHeaders(['accept-language'])['accept-language'] : navigator.languages),
-    timeZone: pickTimeZone(cookie.value),
+    timeZone: pickTimeZone(readZoneCookie(import.meta.server ? useRequestHeaders(['cookie']).cookie : document.cookie)),
   }))
 
   if (import.meta.client) {
     onMounted(() => {
       const zone = Intl.DateTimeFormat().resolvedOptions().timeZone
       if (zone && zone !== prefs.value.timeZone) {
-        cookie.value = zone
+        document.cookie = `${TIME_ZONE_COOKIE}=${encodeURIComponent(zone)}; Path=/; Max-Age=${60 * 60 * 24 * 365}; SameSite=Lax`
         prefs.value = { ...prefs.value, timeZone: zone }
       }
     })

@@ -7,10 +7,18 @@ export interface CueSettings {
 
 const SETTINGS_KEY = 'switchback.player.settings.v1'
 
+// One audio context per page, whichever component asks: the page unlocks the sound on the start tap, the
+// runner's beep schedule (useBeepSchedule) plays on it.
+let audio: AudioContext | undefined
+
+/** The page's audio context once a tap has unlocked it (undefined before, or with beeps switched off). */
+export function sessionAudio() {
+  return audio
+}
+
 /** Beeps (Web Audio), spoken step names, vibration and the screen wake lock, each switchable. */
 export function useSessionCues() {
   const settings = useState<CueSettings>('session-cue-settings', () => ({ sound: true, speech: false, vibration: true, keepAwake: true }))
-  let audio: AudioContext | undefined
   let wakeLock: WakeLockSentinel | undefined
 
   function loadSettings() {
@@ -39,26 +47,8 @@ export function useSessionCues() {
     if (audio.state === 'suspended') void audio.resume()
   }
 
-  function tone(frequency: number, seconds: number, volume = 0.25) {
-    if (!settings.value.sound || !audio) return
-    const oscillator = audio.createOscillator()
-    const gain = audio.createGain()
-    oscillator.frequency.value = frequency
-    oscillator.type = 'sine'
-    const start = audio.currentTime
-    gain.gain.setValueAtTime(volume, start)
-    gain.gain.exponentialRampToValueAtTime(0.001, start + seconds)
-    oscillator.connect(gain).connect(audio.destination)
-    oscillator.start(start)
-    oscillator.stop(start + seconds)
-  }
-
-  function countdown() {
-    tone(660, 0.12)
-  }
-
+  /** The vibration and the next step's name at a step change (the beep is useBeepSchedule's). */
   function change(nextLabel?: string) {
-    tone(990, 0.35, 0.35)
     if (settings.value.vibration && 'vibrate' in navigator) navigator.vibrate([120, 60, 120])
     if (settings.value.speech && nextLabel && 'speechSynthesis' in window) {
       window.speechSynthesis.cancel()
@@ -91,5 +81,5 @@ export function useSessionCues() {
     }
   }
 
-  return { settings, loadSettings, saveSettings, unlock, countdown, change, speak, keepAwake }
+  return { settings, loadSettings, saveSettings, unlock, change, speak, keepAwake }
 }

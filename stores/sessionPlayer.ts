@@ -75,6 +75,8 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   const timings = ref<ChangeTiming[]>([])
   let clock: SessionClock | null = null
   let now: () => number = () => performance.now()
+  /** Routine seconds per real second (the test-only speed switch); the clock's line is performance.now × speed. */
+  let speed = 1
   let listeners: ((changes: ClockChange[]) => void)[] = []
   /** Set at sign-out: the run on screen must not write itself back to the device as the page goes. */
   let forgotten = false
@@ -114,7 +116,7 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   function open(plan: PlayerPlan, options: { speed?: number } = {}) {
     outbox.load()
     forgotten = false
-    const speed = options.speed && options.speed > 0 ? options.speed : 1
+    speed = options.speed && options.speed > 0 ? options.speed : 1
     now = speed === 1 ? () => performance.now() : () => performance.now() * speed
     data.value = markRaw(plan)
     timings.value = []
@@ -213,6 +215,21 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
     if (changes.length) handle(changes)
   }
 
+  /** The current timed segment and those straight after it, on the clock's line (for the beeps ahead). */
+  function upcomingSegments() {
+    return clock?.upcomingSegments() ?? []
+  }
+
+  /** A moment of performance.now's line on the clock's line. */
+  function clockTime(realMs: number) {
+    return realMs * speed
+  }
+
+  /** A moment of the clock's line on performance.now's line. */
+  function realTime(clockMs: number) {
+    return clockMs / speed
+  }
+
   /** Records when a change due at `scheduledAt` reached the screen (for the timing figures). */
   function recordShown(change: ClockChange) {
     timings.value.push({ index: change.to, scheduledAt: change.scheduledAt, shownAt: now() })
@@ -278,6 +295,6 @@ export const useSessionPlayerStore = defineStore('sessionPlayer', () => {
   return {
     data, clientId, acknowledged, started, resumed, finishedSent, drafts, logged, state, timings,
     segments, current, next, finished, loggedList, loggableCount,
-    open, reset, onChanges, tick, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist, forget,
+    open, reset, onChanges, tick, upcomingSegments, clockTime, realTime, recordShown, acknowledge, start, act, togglePause, updateDraft, correct, finish, persist, forget,
   }
 })

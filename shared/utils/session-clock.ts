@@ -189,6 +189,24 @@ export class SessionClock {
     return this.segmentStart + segment.durationS * 1000
   }
 
+  /**
+   * The current timed segment and the timed ones straight after it, each with its absolute start and end on
+   * the `now()` line (a pause shifts them all); stops at the first manual segment. Empty unless running.
+   */
+  upcomingSegments(): { index: number, startsAt: number, endsAt: number }[] {
+    const upcoming: { index: number, startsAt: number, endsAt: number }[] = []
+    if (this.status !== 'running') return upcoming
+    let startsAt = this.segmentStart
+    for (let index = this.index; index < this.segments.length; index++) {
+      const segment = this.segments[index]!
+      if (segment.manual) break
+      const endsAt = startsAt + segment.durationS * 1000
+      upcoming.push({ index, startsAt, endsAt })
+      startsAt = endsAt
+    }
+    return upcoming
+  }
+
   /** Where the session stands, for storing; `restore` brings it back paused at that point. */
   snapshot(): ClockSnapshot {
     const state = this.state()

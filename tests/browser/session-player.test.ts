@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext, Page } from 'playwright-core'
 import type { AssignmentSnapshot } from '../../shared/types/domain'
-import { newContext, screenshotPath, viewports, readStepTimings, watchStepChanges, signInByRequest } from '../support/browser'
+import { newContext, screenshotPath, viewports, readScheduledBeeps, readStepTimings, watchStepChanges, signInByRequest } from '../support/browser'
 import { addAthlete, registerCoach } from '../support/team'
 import { useBrowserStack } from '../support/hooks'
 import type { Logbook } from '../../types/api'
@@ -184,10 +184,10 @@ describe('the session player', () => {
     await context.close()
   })
 
-  it('measures how far step changes land from their schedule in real time', async () => {
-    const durations = [2, 3, 2, 3, 2, 3]
+  /** A session of timed blocks (work and recovery in turn), opened on a desktop with its cautions read. */
+  async function openTimedBlocks(title: string, durations: number[]) {
     const snapshot: AssignmentSnapshot = {
-      title: 'Timing check',
+      title,
       category: 'drills',
       description: '',
       exercises: [],
@@ -199,6 +199,12 @@ describe('the session player', () => {
     const page = await context.newPage()
     await page.goto(`${running.stack.url}/session/${id}`)
     await page.getByRole('checkbox', { name: /I have read the cautions/ }).check()
+    return { context, page }
+  }
+
+  it('measures how far step changes land from their schedule in real time', async () => {
+    const durations = [2, 3, 2, 3, 2, 3]
+    const { context, page } = await openTimedBlocks('Timing check', durations)
     // Note the moment each step's name reaches the page, independently of the player's own record.
     await watchStepChanges(page)
     await page.getByRole('button', { name: 'Start session' }).click()
@@ -219,6 +225,34 @@ describe('the session player', () => {
     console.log(`Step changes vs schedule over ${durations.length} changes, ms: rendered by the player max ${stats(lateness).max} mean ${stats(lateness).mean}; seen in the page's DOM max ${stats(domLateness).max} mean ${stats(domLateness).mean}`)
     // Sanity only: every change happened, none before its time, none absurdly late.
     expect(lateness.every(value => value >= 0 && value < 2000)).toBe(true)
+    // Each boundary's beep was put on the audio clock ahead of it, for that boundary's moment, and kept.
+    const beeps = await readScheduledBeeps(page)
+    const changeBeeps = result.timings.map(timing => beeps.find(beep => beep.kind === 'change' && beep.boundary === timing.index - 1 && !beep.cancelled))
+    expect(changeBeeps.every(beep => beep !== undefined)).toBe(true)
+    expect(changeBeeps.map(beep => beep!.boundaryAt)).toEqual(result.timings.map(timing => timing.scheduledAt))
+    const offsets = changeBeeps.filter(beep => beep!.heardAt !== undefined).map(beep => beep!.heardAt! - beep!.boundaryAt)
+    if (offsets.length) console.log(`Beeps vs their boundaries over ${offsets.length} changes, ms: max ${Math.max(...offsets.map(Math.abs)).toFixed(1)} mean ${(offsets.reduce((sum, value) => sum + value, 0) / offsets.length).toFixed(1)}`)
+    await context.close()
+  })
+
+  it('takes the scheduled beeps off the audio clock on pause and schedules them again on resume', async () => {
+    const { context, page } = await openTimedBlocks('Beep check', [20, 20])
+    await page.getByRole('button', { name: 'Start session' }).click()
+    const live = async (key: string) => (await readScheduledBeeps(page)).filter(beep => beep.key === key && !beep.cancelled)
+    // The first step's countdown and end are on the audio clock well before they are due.
+    await expect.poll(async () => (await live('0:0')).length).toBe(1)
+    expect((await live('0:3')).length).toBe(1)
+    const [first] = await live('0:0')
+    await page.getByTestId('pause-button').click()
+    await expect.poll(async () => (await readScheduledBeeps(page)).filter(beep => !beep.cancelled).length).toBe(0)
+    expect((await readScheduledBeeps(page)).find(beep => beep.key === '0:0')!.cancelled).toBe(true)
+    await page.waitForTimeout(500)
+    await page.getByTestId('pause-button').click()
+    await expect.poll(async () => (await live('0:0')).length).toBe(1)
+    const [again] = await live('0:0')
+    // The same boundary, moved later by the pause.
+    expect(again!.boundaryAt - first!.boundaryAt).toBeGreaterThanOrEqual(500)
+    expect(again!.audioAt).toBeGreaterThan(first!.audioAt)
     await context.close()
   })
 })

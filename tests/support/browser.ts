@@ -104,3 +104,22 @@ export async function readStepTimings(page: Page): Promise<StepTimings> {
     seen: (window as unknown as { seenChanges?: StepTimings['seen'] }).seenChanges ?? [],
   }))
 }
+
+/** A beep the player put on the audio clock (composables/useBeepSchedule.ts), as its test-only record shows it. */
+export interface ScheduledBeepRecord {
+  key: string
+  kind: 'countdown' | 'change'
+  /** Index of the segment whose end the beep belongs to, and that end on performance.now's line. */
+  boundary: number
+  boundaryAt: number
+  /** Its start on the audio clock (s). */
+  audioAt: number
+  cancelled: boolean
+  /** For a change beep: when it will be heard on performance.now's line, read again at its boundary. */
+  heardAt?: number
+}
+
+/** Every beep the session runner scheduled so far (empty before it first ran). */
+export async function readScheduledBeeps(page: Page): Promise<ScheduledBeepRecord[]> {
+  return page.evaluate(() => JSON.parse(JSON.stringify((window as unknown as { switchbackBeeps?: unknown[] }).switchbackBeeps ?? [])))
+}
