@@ -44,8 +44,14 @@ describe('cues pinned to moments of a clip', () => {
     await page.getByRole('heading', { name: 'A-skips' }).first().waitFor()
     await page.getByTestId('clip-file').setInputFiles(demoClip.path)
     await page.getByText(/Clip uploaded and checked/).waitFor({ timeout: 30_000 })
+    // Mark the player the coach sees now: the poster arriving later must not replace it (it could be playing).
+    await page.getByTestId('exercise-clip').evaluate((element: HTMLVideoElement) => {
+      element.dataset.firstPlayer = 'yes'
+    })
     // A poster frame is taken from the clip in the browser and stored beside it.
     await page.getByText('A poster frame from the clip was saved.').waitFor({ timeout: 30_000 })
+    const firstPlayer = page.locator('[data-testid="exercise-clip"][data-first-player="yes"]')
+    await expect.poll(() => firstPlayer.getAttribute('poster')).toMatch(/\S/)
     const details = page.getByTestId('clip-details')
     await expect.poll(() => details.textContent()).toMatch(/WEBM · .* · 4\.0 s · 320×180 · with poster image/)
     const playback = await team.coach.get<{ posterUrl: string | null }>(`/api/exercises/${exerciseId}/clip`)
