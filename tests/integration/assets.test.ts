@@ -1,3 +1,5 @@
+import { request } from 'node:http'
+import { brotliDecompressSync, gunzipSync } from 'node:zlib'
 import { describe, expect, it } from 'vitest'
 import { useStack } from '../support/hooks'
 
@@ -15,5 +17,32 @@ describe('static assets', () => {
       expect(response.headers.get('content-encoding')).toBe(encoding)
       expect(response.headers.get('cache-control')).toMatch(/max-age=31536000.*immutable/)
     }
+  })
+
+  it('rendered pages go out compressed by what the browser accepts, and plain to a client that asks for nothing', async () => {
+    // node:http, not fetch: fetch would undo the compression and always ask for it.
+    const get = (acceptEncoding?: string) => new Promise<{ encoding?: string, vary?: string, body: Buffer }>((resolve, reject) => {
+      const outgoing = request(`${running.stack.url}/login`, { headers: acceptEncoding ? { 'accept-encoding': acceptEncoding } : {} }, (incoming) => {
+        const chunks: Buffer[] = []
+        incoming.on('data', chunk => chunks.push(chunk))
+        incoming.on('end', () => resolve({ encoding: incoming.headers['content-encoding'], vary: String(incoming.headers.vary ?? ''), body: Buffer.concat(chunks) }))
+        incoming.on('error', reject)
+      })
+      outgoing.on('error', reject)
+      outgoing.end()
+    })
+    const plain = await get()
+    expect(plain.encoding).toBeUndefined()
+    expect(plain.body.toString()).toContain('</html>')
+    expect(plain.vary.toLowerCase()).toContain('accept-encoding')
+
+    const brotli = await get('gzip, deflate, br')
+    expect(brotli.encoding).toBe('br')
+    expect(brotli.body.length).toBeLessThan(plain.body.length / 2)
+    expect(brotliDecompressSync(brotli.body).toString()).toContain('</html>')
+
+    const gzip = await get('gzip')
+    expect(gzip.encoding).toBe('gzip')
+    expect(gunzipSync(gzip.body).toString()).toContain('</html>')
   })
 })
