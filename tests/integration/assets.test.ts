@@ -21,7 +21,7 @@ describe('static assets', () => {
 
   it('rendered pages go out compressed by what the browser accepts, and plain to a client that asks for nothing', async () => {
     // node:http, not fetch: fetch would undo the compression and always ask for it.
-    const get = (acceptEncoding?: string) => new Promise<{ encoding?: string, vary?: string, body: Buffer }>((resolve, reject) => {
+    const get = (acceptEncoding?: string) => new Promise<{ encoding?: string, vary: string, body: Buffer }>((resolve, reject) => {
       const outgoing = request(`${running.stack.url}/login`, { headers: acceptEncoding ? { 'accept-encoding': acceptEncoding } : {} }, (incoming) => {
         const chunks: Buffer[] = []
         incoming.on('data', chunk => chunks.push(chunk))
