@@ -1,22 +1,20 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { createClient, type Client } from '@libsql/client'
 import { drizzle } from 'drizzle-orm/libsql'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { migrateDatabase, openDatabase, type Database } from '../../server/db/client'
+import { migrateDatabase, type Database } from '../../server/db/client'
 import * as schema from '../../server/db/schema'
 import { assignments, formReviews, invites, memberships, mediaObjects, sessionLogs, squadMembers, squads, teams, users } from '../../server/db/schema'
 import { COACH_HOME_STATEMENTS, coachHome } from '../../server/utils/coach-home'
 import { teamInsightsRows } from '../../server/utils/insights'
 import { addDays, todayIn } from '../../shared/utils/dates'
 import { createRoutine, insertHistory, insertPainFlag } from '../support/insights-data'
+import { openTempDatabase, type TempDatabase } from '../support/temp-database'
 
 // The coach's home is one request that must stay "a few queries" however big the team is: the libSQL
 // client under it counts every statement sent to a real SQLite file.
 const MAX_STATEMENTS = 4
 
-let dir: string
+let temp: TempDatabase | undefined
 let url: string
 let db: Database
 const now = new Date()
@@ -63,15 +61,14 @@ async function addAthletes(teamId: number, names: string[], squadId?: number) {
 }
 
 beforeAll(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'switchback-home-'))
-  url = `file:${join(dir, 'home.db')}`
-  db = await openDatabase(url)
+  temp = await openTempDatabase('home')
+  url = temp.url
+  db = temp.db
   await migrateDatabase(db)
 })
 
 afterAll(() => {
-  db?.$client.close()
-  rmSync(dir, { recursive: true, force: true })
+  temp?.remove()
 })
 
 describe('the coach\'s home', () => {

@@ -1,28 +1,25 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { createClient } from '@libsql/client'
 import { sql } from 'drizzle-orm'
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
-import { openDatabase, type Database } from '../../server/db/client'
+import type { Database } from '../../server/db/client'
 import { databaseUnavailableMessage, sqliteCodeOf } from '../../server/utils/database-faults'
+import { openTempDatabase, type TempDatabase } from '../support/temp-database'
 
 // Real SQLite errors from a real file, not made-up error objects: the classifier must recognise what
 // libSQL and Drizzle actually throw.
-let dir: string
+let temp: TempDatabase
 let url: string
 let db: Database
 
 beforeEach(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'switchback-faults-'))
-  url = `file:${join(dir, 'faults.db')}`
-  db = await openDatabase(url)
+  temp = await openTempDatabase('faults')
+  url = temp.url
+  db = temp.db
   await db.run(sql`create table notes (id integer primary key, body text unique)`)
 })
 
 afterEach(() => {
-  db.$client.close()
-  rmSync(dir, { recursive: true, force: true })
+  temp.remove()
 })
 
 async function failureOf(work: () => Promise<unknown>) {

@@ -1,32 +1,29 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { createClient, type Client } from '@libsql/client'
 import { eq, sql } from 'drizzle-orm'
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
-import { migrateDatabase, openDatabase, type Database } from '../../server/db/client'
+import { migrateDatabase, type Database } from '../../server/db/client'
 import { users } from '../../server/db/schema'
+import { openTempDatabase, type TempDatabase } from '../support/temp-database'
 
 // The app's client keeps its SELECT statements prepared on a connection of its own; these compare it
 // with a plain @libsql/client on the same file, so rows, errors and freshness must read the same.
-let dir: string
+let temp: TempDatabase
 let url: string
 let db: Database
 let plain: Client
 
 beforeEach(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'switchback-reads-'))
-  url = `file:${join(dir, 'reads.db')}`
-  db = await openDatabase(url)
+  temp = await openTempDatabase('reads')
+  url = temp.url
+  db = temp.db
   plain = createClient({ url })
   await db.run(sql`create table notes (id integer primary key, body text, data blob, done integer)`)
   await db.run(sql`insert into notes (body, data, done) values ('first', x'0102', 1), ('second', null, 0)`)
 })
 
 afterEach(() => {
-  db.$client.close()
   plain.close()
-  rmSync(dir, { recursive: true, force: true })
+  temp.remove()
 })
 
 describe('prepared reads', () => {
