@@ -11,7 +11,7 @@ import type { Page } from 'playwright-core'
 import { ApiClient } from '../tests/support/client'
 import { launchBrowser, newContext, readScheduledBeeps, readStepTimings, watchStepChanges } from '../tests/support/browser'
 import { logEverything, seedLoggingAthletes } from '../tests/support/logging-athletes'
-import { freePort, root, spawnApp, startStack, waitForServer } from '../tests/support/stack'
+import { freePort, root, spawnApp, spawnAppOnFreePort, startStack, waitForServer } from '../tests/support/stack'
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 8)
 const CONNECTIONS = 10
@@ -234,10 +234,21 @@ async function main() {
       ['/exercises', 'coach (page)', coach.cookie],
       ['/today', 'athlete (page)', athlete.cookie],
     ]
-    console.log(`Measuring ${paths.length + 1} paths, ${SECONDS} s each with ${CONNECTIONS} connections…`)
+    console.log(`Measuring ${paths.length + 1} paths, then the signed-in ones again with no answers kept, ${SECONDS} s each with ${CONNECTIONS} connections…`)
     const yardstick = PARTS.has('reads') ? await measure(bareUrl, '/', 'bare Nitro route', undefined, bareChild.pid) : undefined
     const rows: Measured[] = yardstick ? [yardstick] : []
     if (yardstick) for (const [path, who, cookie] of paths) rows.push(await measure(app.url, path, who, cookie, app.child.pid))
+    if (yardstick) {
+      // The same reads on a second server that keeps no answers (ANSWER_CACHE_MS=0): what each costs when it
+      // is computed afresh, as the first read after any write is.
+      const { app: computing } = await spawnAppOnFreePort(port => ({ ...stack.env, PORT: String(port), ANSWER_CACHE_MS: '0' }))
+      try {
+        for (const [path, who, cookie] of paths.filter(([, , cookie]) => cookie)) rows.push(await measure(computing.url, path, `${who}, nothing kept`, cookie, computing.child.pid))
+      }
+      finally {
+        await computing.stop()
+      }
+    }
 
     const entries = PARTS.has('entries') ? await logSets(stack.databaseUrl, app.url) : undefined
 

@@ -32,17 +32,28 @@ const readOnly = (sql: string) => /^\s*(?:select|with)\b/i.test(sql) && !/\b(?:i
  */
 export function withPreparedReads(client: Client, path: string, timeout: number): Client {
   let connection: Connection | undefined
+  let connectionNumber = 0
   let prepared = new Map<string, Prepared>()
+  let dataVersion: Statement | undefined
 
   const drop = () => {
     const open = connection
     connection = undefined
     prepared = new Map()
+    dataVersion = undefined
     if (open?.open) open.close()
   }
 
+  const connect = () => {
+    if (!connection) {
+      connection = new Database(path, { timeout })
+      connectionNumber = ++openedConnections
+    }
+    return connection
+  }
+
   const prepare = (sql: string) => {
-    connection ??= new Database(path, { timeout })
+    const connection = connect()
     const statement = connection.prepare(sql)
     statement.safeIntegers(true)
     statement.raw(true)
@@ -73,9 +84,25 @@ export function withPreparedReads(client: Client, path: string, timeout: number)
     return read(sql, typeof statementOrSql === 'string' ? args ?? [] : statementOrSql.args ?? [])
   }
 
+  // SQLite's data_version moves whenever another connection (every write goes through `client`, or another
+  // process) has committed since; its values compare only within one connection, hence the number.
+  const changeMark = (): string | undefined => {
+    try {
+      const connection = connect()
+      dataVersion ??= connection.prepare('PRAGMA data_version').raw(true)
+      const [version] = dataVersion.get() as [number]
+      return `${connectionNumber}:${version}`
+    }
+    catch {
+      drop()
+      return undefined
+    }
+  }
+
   return new Proxy(client, {
     get(target, property) {
       if (property === 'execute') return execute
+      if (property === changeMarkKey) return changeMark
       if (property === 'close') {
         return () => {
           drop()
@@ -86,6 +113,19 @@ export function withPreparedReads(client: Client, path: string, timeout: number)
       return typeof value === 'function' ? value.bind(target) : value
     },
   })
+}
+
+let openedConnections = 0
+const changeMarkKey = Symbol('changeMark')
+
+/**
+ * A mark that changes whenever anything has been committed to the database file since it was last read,
+ * by this process or any other; `undefined` when the client cannot tell (not a local file, or the
+ * database cannot be read). Two equal marks mean nothing was written in between.
+ */
+export function databaseChangeMark(client: Client): string | undefined {
+  const read = (client as unknown as Record<symbol, unknown>)[changeMarkKey]
+  return typeof read === 'function' ? (read as () => string | undefined)() : undefined
 }
 
 /** Arguments as the native binding takes them: booleans and dates as numbers, blobs as Buffers. */

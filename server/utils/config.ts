@@ -18,6 +18,8 @@ const configSchema = z.object({
   healthCheckIntervalMs: z.coerce.number().int().positive().default(10_000),
   // How long a notice of moved or removed sessions waits for more changes before it is sent.
   planNoticeDelayMs: z.coerce.number().int().min(0).default(600_000),
+  // How long a read route's answer is kept while nothing is written (server/utils/answer-cache.ts); 0 keeps none.
+  answerCacheMs: z.coerce.number().int().min(0).max(300_000).default(30_000),
   databaseAuthToken: z.string().optional(),
   migrationsDir: z.string().optional(),
   trustProxy: z.enum(['true', 'false']).default('false').transform(value => value === 'true'),
@@ -50,6 +52,7 @@ export function useServerConfig(): AppConfig {
     mediaSweepIntervalMs: process.env.MEDIA_SWEEP_INTERVAL_MS || undefined,
     healthCheckIntervalMs: process.env.HEALTH_CHECK_INTERVAL_MS || undefined,
     planNoticeDelayMs: process.env.PLAN_NOTICE_DELAY_MS || undefined,
+    answerCacheMs: process.env.ANSWER_CACHE_MS || undefined,
     databaseAuthToken: process.env.DATABASE_AUTH_TOKEN || undefined,
     migrationsDir: process.env.MIGRATIONS_DIR || undefined,
     trustProxy: process.env.TRUST_PROXY || undefined,

@@ -2,6 +2,7 @@ import { createClient, type Client } from '@libsql/client'
 import { eq, sql } from 'drizzle-orm'
 import { afterEach, beforeEach, describe, expect, it } from 'vitest'
 import { migrateDatabase, type Database } from '../../server/db/client'
+import { databaseChangeMark } from '../../server/db/prepared-reads'
 import { users } from '../../server/db/schema'
 import { openTempDatabase, type TempDatabase } from '../support/temp-database'
 
@@ -76,5 +77,27 @@ describe('prepared reads', () => {
     expect(ours.code).toBe(theirs.code)
     expect(ours.message).toBe(theirs.message)
     expect((await db.$client.execute('select count(*) as n from notes')).rows[0]!.n).toBe(2)
+  })
+
+  it('gives a change mark that moves with every commit, by this client or another, and only then', async () => {
+    const first = databaseChangeMark(db.$client)
+    expect(first).toBeDefined()
+    await db.$client.execute('select count(*) from notes')
+    expect(databaseChangeMark(db.$client)).toBe(first)
+    await db.run(sql`update notes set body = 'edited' where id = 1`)
+    const afterOwn = databaseChangeMark(db.$client)
+    expect(afterOwn).not.toBe(first)
+    await plain.execute('insert into notes (body) values (\'third\')')
+    const afterOther = databaseChangeMark(db.$client)
+    expect(afterOther).not.toBe(afterOwn)
+    const transaction = await db.$client.transaction('write')
+    await transaction.execute('delete from notes where id = 2')
+    expect(databaseChangeMark(db.$client)).toBe(afterOther)
+    await transaction.commit()
+    expect(databaseChangeMark(db.$client)).not.toBe(afterOther)
+  })
+
+  it('has no change mark for a client it cannot tell about', () => {
+    expect(databaseChangeMark(plain)).toBeUndefined()
   })
 })

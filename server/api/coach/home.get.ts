@@ -1,6 +1,5 @@
 /** The coach's home page in one request. */
 export default defineEventHandler(async (event) => {
   const caller = await requireCoach(event)
-  const db = await useDb()
-  return coachHome(db, caller.teamId)
+  return keptAnswer(event, caller, async () => coachHome(await useDb(), caller.teamId))
 })

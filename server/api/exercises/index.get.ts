@@ -1,5 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm'
+import type { z } from 'zod'
 import { exerciseListQuerySchema } from '#shared/schemas/exercise'
+import type { Caller } from '../../utils/auth'
 import { exercises, mediaObjects } from '../../db/schema'
 
 const listedColumns = {
@@ -23,6 +25,10 @@ function likePattern(text: string) {
 export default defineEventHandler(async (event) => {
   const caller = await requireTeamRole(event, 'athlete')
   const query = queryWith(event, exerciseListQuerySchema)
+  return keptAnswer(event, caller, () => listExercises(caller, query))
+})
+
+async function listExercises(caller: Caller, query: z.output<typeof exerciseListQuerySchema>) {
   const db = await useDb()
 
   const conditions: (SQL | undefined)[] = [eq(exercises.teamId, caller.teamId)]
@@ -73,4 +79,4 @@ export default defineEventHandler(async (event) => {
     pageSize: query.pageSize,
     equipmentOptions: equipment.map(row => row.item),
   }
-})
+}

@@ -6,17 +6,19 @@ export default defineEventHandler(async (event) => {
   const query = queryWith(event, teamInsightsQuerySchema)
   const db = await useDb()
   if (query.squadId) await findTeamSquad(db, caller.teamId, query.squadId)
-  const rows = sortTeamRows(await teamInsightsRows(db, caller.teamId, query.squadId), query.sort)
-  const pages = Math.max(1, Math.ceil(rows.length / query.pageSize))
-  const page = Math.min(query.page, pages)
-  return {
-    rows: rows.slice((page - 1) * query.pageSize, page * query.pageSize),
-    total: rows.length,
-    page,
-    pages,
-    pageSize: query.pageSize,
-    sort: query.sort,
-    squadId: query.squadId ?? null,
-    band: RATIO_BAND,
-  }
+  return keptAnswer(event, caller, async () => {
+    const rows = sortTeamRows(await teamInsightsRows(db, caller.teamId, query.squadId), query.sort)
+    const pages = Math.max(1, Math.ceil(rows.length / query.pageSize))
+    const page = Math.min(query.page, pages)
+    return {
+      rows: rows.slice((page - 1) * query.pageSize, page * query.pageSize),
+      total: rows.length,
+      page,
+      pages,
+      pageSize: query.pageSize,
+      sort: query.sort,
+      squadId: query.squadId ?? null,
+      band: RATIO_BAND,
+    }
+  })
 })

@@ -50,20 +50,21 @@ export default defineEventHandler(async (event) => {
   const from = query.from ?? addDays(today, -(query.missedDays ?? 0))
   const to = query.to ?? addDays(query.from ?? today, 27)
   if (to < from) refuseField('to', 'The end comes before the start')
-  const db = await useDb()
-  const rows = await listFor(db).all({ teamId: caller.teamId, athleteId: caller.userId, from, to })
-  return {
-    today,
-    timezone: caller.timezone,
-    from,
-    to,
-    assignments: rows.map(({ title, category, exerciseCount, block, ...row }) => ({
-      ...row,
-      title,
-      category,
-      exerciseCount,
-      block: block ? JSON.parse(block) as NonNullable<AssignmentSnapshot['block']> : null,
-      shownStatus: shownStatus(row.status, row.date, today),
-    })),
-  }
+  return keptAnswer(event, caller, async () => {
+    const rows = await listFor(await useDb()).all({ teamId: caller.teamId, athleteId: caller.userId, from, to })
+    return {
+      today,
+      timezone: caller.timezone,
+      from,
+      to,
+      assignments: rows.map(({ title, category, exerciseCount, block, ...row }) => ({
+        ...row,
+        title,
+        category,
+        exerciseCount,
+        block: block ? JSON.parse(block) as NonNullable<AssignmentSnapshot['block']> : null,
+        shownStatus: shownStatus(row.status, row.date, today),
+      })),
+    }
+  })
 })
