@@ -3,50 +3,63 @@ import { databaseChangeMark } from '../db/prepared-reads'
 import type { Caller } from './auth'
 
 /**
- * The JSON answers of the busiest read routes, kept per caller and address until anything is written to the
- * database (by this process or any other: SQLite's data_version, see databaseChangeMark) or `answerCacheMs`
- * passes (30 s unless ANSWER_CACHE_MS says otherwise; 0 keeps nothing), whichever comes first. The time limit bounds what depends on the clock alone: "today" in each
- * athlete's time zone, an invitation running out. A kept answer is sent as the same bytes, so a repeated
- * read costs the caller check and one PRAGMA instead of its queries and serialising. See docs/performance.md.
+ * Answers kept until anything is written to the database (by this process or any other: SQLite's
+ * data_version, see databaseChangeMark) or `answerCacheMs` passes (30 s unless ANSWER_CACHE_MS says
+ * otherwise; 0 keeps nothing), whichever comes first. The time limit bounds what depends on the clock
+ * alone: "today" in each athlete's time zone, an invitation running out. See docs/performance.md.
  */
-const MAX_ANSWER_CHARS = 512 * 1024
-const MAX_TOTAL_CHARS = 32 * 1024 * 1024
+export class KeptAnswers<Extra = undefined> {
+  private readonly kept = new Map<string, { mark: string, body: string, extra: Extra, keptUntil: number }>()
+  private keptChars = 0
 
-interface Kept { mark: string, body: string, keptUntil: number }
+  constructor(private readonly maxTotalChars: number, private readonly maxOneChars: number) {}
 
-const kept = new Map<string, Kept>()
-let keptChars = 0
+  /** The mark answers are kept under now; undefined when nothing can be kept (switched off, or no local file). */
+  static async currentMark() {
+    if (useServerConfig().answerCacheMs <= 0) return undefined
+    return databaseChangeMark((await useDb()).$client)
+  }
 
-function forget(key: string) {
-  const entry = kept.get(key)
-  if (!entry) return
-  kept.delete(key)
-  keptChars -= entry.body.length
+  get(key: string, mark: string) {
+    const hit = this.kept.get(key)
+    if (!hit || hit.mark !== mark || hit.keptUntil <= Date.now()) return undefined
+    // Most recently used last, so the oldest is first to go when the store is full.
+    this.kept.delete(key)
+    this.kept.set(key, hit)
+    return hit
+  }
+
+  set(key: string, mark: string, body: string, extra: Extra) {
+    this.forget(key)
+    if (body.length > this.maxOneChars) return
+    while (this.keptChars + body.length > this.maxTotalChars) this.forget(this.kept.keys().next().value!)
+    this.kept.set(key, { mark, body, extra, keptUntil: Date.now() + useServerConfig().answerCacheMs })
+    this.keptChars += body.length
+  }
+
+  private forget(key: string) {
+    const entry = this.kept.get(key)
+    if (!entry) return
+    this.kept.delete(key)
+    this.keptChars -= entry.body.length
+  }
 }
 
+const answers = new KeptAnswers(32 * 1024 * 1024, 512 * 1024)
+
 /**
- * Answers `compute()`'s result, or the one kept for the same caller (person, team, role, time zone) and
- * address if nothing has been written since. Only successful answers are kept.
+ * The JSON answer of a busy read route: `compute()`'s result, or the same bytes kept for the same caller
+ * (person, team, role, time zone) and address if nothing has been written since. A kept answer costs the
+ * caller check and one PRAGMA instead of its queries and serialising. Only successful answers are kept.
  */
 export async function keptAnswer<T>(event: H3Event, caller: Caller, compute: () => Promise<T>): Promise<T> {
-  const keepFor = useServerConfig().answerCacheMs
-  const mark = keepFor > 0 ? databaseChangeMark((await useDb()).$client) : undefined
+  const mark = await KeptAnswers.currentMark()
   if (!mark) return compute()
   const key = `${caller.teamId}\n${caller.userId}\n${caller.role}\n${caller.timezone}\n${event.path}`
-  const hit = kept.get(key)
-  if (hit && hit.mark === mark && hit.keptUntil > Date.now()) {
-    // Most recently used last, so the oldest is first to go when the cache is full.
-    kept.delete(key)
-    kept.set(key, hit)
-    return sendJson(event, hit.body)
-  }
+  const hit = answers.get(key, mark)
+  if (hit) return sendJson(event, hit.body)
   const body = JSON.stringify(await compute())
-  forget(key)
-  if (body.length <= MAX_ANSWER_CHARS) {
-    while (keptChars + body.length > MAX_TOTAL_CHARS) forget(kept.keys().next().value!)
-    kept.set(key, { mark, body, keptUntil: Date.now() + keepFor })
-    keptChars += body.length
-  }
+  answers.set(key, mark, body, undefined)
   return sendJson(event, body)
 }
 

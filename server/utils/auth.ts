@@ -85,7 +85,7 @@ const liveSignInSql = `SELECT m.role AS role FROM auth_sessions s
 let cookieName: string | undefined
 
 /** The sealed session cookie's name (nuxt-auth-utils' default unless the runtime config names one). */
-function sessionCookieName() {
+export function sessionCookieName() {
   cookieName ??= (useRuntimeConfig().session as { name?: string } | undefined)?.name || 'nuxt-session'
   return cookieName
 }

@@ -6,9 +6,10 @@ import type { ApiResponse, ExerciseList, MyAssignments } from '../../types/api'
 
 type CoachHome = ApiResponse<'/api/coach/home'>
 
-// The busiest read routes keep their answers until the database changes (server/utils/answer-cache.ts):
-// these check that a kept answer is never one the caller should not see, and never survives a write, made
-// through the app or straight into the file by someone else.
+// The busiest read routes and the rendered pages keep their answers until the database changes
+// (server/utils/answer-cache.ts, server/plugins/01.kept-pages.ts): these check that a kept answer is never one
+// the caller should not see, never survives a write made through the app or straight into the file by someone
+// else, and that a kept page still gets a fresh CSP nonce.
 const running = useStack()
 let head: ApiClient
 let teamId: number
@@ -88,5 +89,56 @@ describe('kept answers', () => {
     await running.fixtures.rows('update memberships set role = ? where team_id = ? and user_id = ?', ['athlete', teamId, userId])
     expect((await coach.get('/api/coach/home')).status).toBe(403)
     expect((await coach.get('/api/exercises?pageSize=100')).data).toMatchObject({ items: [] })
+  })
+})
+
+async function page(client: ApiClient, path: string) {
+  const response = await client.request('GET', path, undefined, { headers: { accept: 'text/html' } })
+  const csp = response.headers.get('content-security-policy') ?? ''
+  const nonce = /'nonce-([^']+)'/.exec(csp)?.[1]
+  return { status: response.status, location: response.headers.get('location'), html: response.text, nonce }
+}
+
+describe('kept pages', () => {
+  it('answers a repeated page with the same markup and a fresh nonce in both the header and the page', async () => {
+    const first = await page(athlete, '/today')
+    const second = await page(athlete, '/today')
+    expect(first.status).toBe(200)
+    expect(second.status).toBe(200)
+    expect(first.nonce).toBeDefined()
+    expect(second.nonce).toBeDefined()
+    expect(second.nonce).not.toBe(first.nonce)
+    expect(second.html).not.toContain(first.nonce!)
+    expect(second.html).toContain(`nonce="${second.nonce}"`)
+    expect(second.html.replaceAll(second.nonce!, 'N')).toBe(first.html.replaceAll(first.nonce!, 'N'))
+  })
+
+  it('shows a change written by another process on the next render', async () => {
+    expect((await page(athlete, '/today')).html).not.toContain('Stride drills by the river')
+    await page(athlete, '/today')
+    await running.fixtures.assignment(teamId, athleteId, { title: 'Stride drills by the river', category: 'drills', description: '', steps: [], exercises: [] })
+    expect((await page(athlete, '/today')).html).toContain('Stride drills by the river')
+  })
+
+  it('renders each person their own page', async () => {
+    const { athlete: other } = await addAthlete(running.stack, head, { name: 'Oren Vale' })
+    // Both sign-ins checked first, so that either page could be kept and answered to the other.
+    expect((await other.get('/api/me')).status).toBe(200)
+    expect((await athlete.get('/api/me')).status).toBe(200)
+    const mine = await page(athlete, '/today')
+    const theirs = await page(other, '/today')
+    expect(mine.html).toContain('Stride drills by the river')
+    expect(theirs.status).toBe(200)
+    expect(theirs.html).not.toContain('Stride drills by the river')
+  })
+
+  it('never answers a signed-out cookie with the page it was shown before', async () => {
+    const copy = athlete.copy()
+    expect((await page(copy, '/today')).status).toBe(200)
+    expect((await page(copy, '/today')).status).toBe(200)
+    expect((await athlete.post('/api/auth/logout')).status).toBe(204)
+    const after = await page(copy, '/today')
+    expect(after.status).toBe(302)
+    expect(after.location).toMatch(/^\/login/)
   })
 })
