@@ -9,8 +9,9 @@ import { sessionCookieName } from '../utils/auth'
 // it depends on the address, the cookies (the sign-in, the time zone), the browser's languages and the host,
 // which together are the key. What differs between two renders is the CSP nonce; a kept page gets this
 // request's nonce in place of the old one, and its CSP header is made by nuxt-security's own hooks as for a
-// render. Only plain 200 pages that set no cookie are kept, and a signed-in page only while the sign-in is
-// known to be live here: a sign-out, a revocation or a role change is a write, so it ends every kept page.
+// render. Only plain 200 pages whose data all arrived (plugins/kept-pages.server.ts) and that set no cookie are
+// kept, and a signed-in page only while the sign-in is known to be live here: a sign-out, a revocation or a
+// role change is a write, so it ends every kept page.
 // Named 01 so that it sees the page before compress-pages.ts does. See docs/performance.md.
 interface PageExtra { nonce: string | undefined, statusMessage: string | undefined, headers: Record<string, string> }
 
@@ -55,7 +56,8 @@ export default defineNitroPlugin((nitroApp) => {
 
   nitroApp.hooks.hook('render:response', (response, { event }) => {
     const lookup = event.context.keptPage as PageLookup | undefined
-    if (!lookup || lookup.hit || typeof response.body !== 'string') return
+    // pageNotKept: some of the page's data failed (plugins/kept-pages.server.ts).
+    if (!lookup || lookup.hit || event.context.pageNotKept || typeof response.body !== 'string') return
     if ((response.statusCode ?? 200) !== 200 || event.node.res.statusCode !== 200) return
     if (event.node.res.getHeader('set-cookie') !== undefined || !signInKnownLive(event)) return
     const nonce = (event.context.security as { nonce?: string } | undefined)?.nonce

@@ -132,6 +132,24 @@ describe('kept pages', () => {
     expect(theirs.html).not.toContain('Stride drills by the river')
   })
 
+  it('renders again a page whose data failed, and keeps one whose data arrived', async () => {
+    // Each render fetches the team's insights inside the server, and each fetch writes a log line.
+    const fetchesOf = (status: number) => running.stack.log().split('\n')
+      .filter(line => line.includes('"route":"/api/insights/team"') && line.includes(`"status":${status}`)).length
+    const waitForLog = () => new Promise(resolve => setTimeout(resolve, 100))
+    const failing = '/insights?squadId=999999'
+    const failedBefore = fetchesOf(404)
+    expect((await page(head, failing)).status).toBe(200)
+    expect((await page(head, failing)).status).toBe(200)
+    await waitForLog()
+    expect(fetchesOf(404) - failedBefore).toBe(2)
+    const okBefore = fetchesOf(200)
+    expect((await page(head, '/insights')).status).toBe(200)
+    expect((await page(head, '/insights')).status).toBe(200)
+    await waitForLog()
+    expect(fetchesOf(200) - okBefore).toBe(1)
+  })
+
   it('never answers a signed-out cookie with the page it was shown before', async () => {
     const copy = athlete.copy()
     expect((await page(copy, '/today')).status).toBe(200)
