@@ -451,6 +451,8 @@ export const assignments = sqliteTable('assignments', {
   index('assignments_block_week_idx').on(t.blockId, t.blockWeek),
   index('assignments_block_routine_idx').on(t.blockRoutineId),
   index('assignments_athlete_date_idx').on(t.athleteId, t.date),
+  // Covers the team table's compliance counts (one athlete's days, then the status) without reading the rows.
+  index('assignments_team_athlete_date_status_idx').on(t.teamId, t.athleteId, t.date, t.status),
   index('assignments_routine_idx').on(t.routineId),
   index('assignments_series_idx').on(t.seriesId),
   index('assignments_assigned_by_idx').on(t.assignedById),
@@ -501,6 +503,8 @@ export const sessionLogs = sqliteTable('session_logs', {
   index('session_logs_team_day_idx').on(t.teamId, t.day),
   // Covers the insights query (team, date range → athlete, load) so it never reads the table rows.
   index('session_logs_team_day_load_idx').on(t.teamId, t.day, t.athleteId, t.load),
+  // The same per athlete: the team table walks each athlete's days in order, so their totals need no sort.
+  index('session_logs_team_athlete_day_load_idx').on(t.teamId, t.athleteId, t.day, t.load),
 ])
 
 export const entryLogs = sqliteTable('entry_logs', {

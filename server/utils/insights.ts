@@ -120,22 +120,64 @@ export async function dailyLoadsByAthlete(db: Database, teamId: number, from: st
   return byAthlete
 }
 
-/** Assigned and done counts per athlete and date, for the dates from `from` to `to`. */
-export async function assignedCountsByAthlete(db: Database, teamId: number, from: string, to: string, athleteIds?: number[]) {
-  const rows = await db.all<{ athleteId: number, packed: string | null }>(sql`
-    select athlete_id as athleteId, group_concat(date || ' ' || assigned || ' ' || done, ',') as packed
-    from (
-      select ${assignments.athleteId} as athlete_id, ${assignments.date} as date, count(*) as assigned, sum(${doneExpression}) as done
-      from ${assignments}
-      where ${assignments.teamId} = ${teamId} and ${assignments.date} between ${from} and ${to}${athleteFilter(assignments.athleteId, athleteIds)}
-      group by ${assignments.athleteId}, ${assignments.date}
+/** "day total,day total,…" as daily loads; one pass, as a year of a whole team's days goes through it. */
+function unpackDayTotals(packed: string | null): DailyLoad[] {
+  if (!packed) return []
+  return packed.split(',').map((item) => {
+    const space = item.indexOf(' ')
+    return { day: item.slice(0, space), load: Number(item.slice(space + 1)) }
+  })
+}
+
+interface TeamFigures {
+  daily: DailyLoad[]
+  compliance7: Compliance
+  compliance28: Compliance
+}
+
+/**
+ * What the team table needs of each athlete's history, each over the athlete's own days: the daily load totals
+ * of the ratio's look-back ending on their today, and what was assigned and done in the last 7 and 28 days.
+ * One statement walking each athlete's rows in day order through the (team, athlete, day) indexes, so nothing
+ * is sorted; the day totals come back as text, as in dailyLoadsByAthlete, so the ratios read the same numbers.
+ */
+async function teamFigures(db: Database, teamId: number, todays: Map<number, string>) {
+  const windows = JSON.stringify([...todays].map(([athlete, today]) => ({
+    athlete, today, loadsFrom: addDays(today, -(RATIO_LOOKBACK_DAYS - 1)), from28: addDays(today, -27), from7: addDays(today, -6),
+  })))
+  // Materialised so that each bound is read out of the JSON once per athlete, not once per row compared.
+  const rows = await db.all<{ athleteId: number, loads: string | null, counts: string }>(sql`
+    with span as materialized (
+      select value ->> 'athlete' as athlete, value ->> 'today' as today, value ->> 'loadsFrom' as loads_from,
+        value ->> 'from28' as from28, value ->> 'from7' as from7
+      from json_each(${windows})
     )
-    group by athlete_id`)
-  const byAthlete = new Map<number, AssignedCount[]>()
+    select span.athlete as athleteId,
+      (select group_concat(day || ' ' || total, ',') from (
+        select ${sessionLogs.day} as day, sum(max(coalesce(${sessionLogs.load}, 0), 0)) as total
+        from ${sessionLogs}
+        where ${sessionLogs.teamId} = ${teamId} and ${sessionLogs.athleteId} = span.athlete
+          and ${sessionLogs.day} between span.loads_from and span.today
+        group by ${sessionLogs.day}
+      )) as loads,
+      (select count(*) || ' ' || coalesce(sum(${doneExpression}), 0) || ' '
+          || count(*) filter (where ${assignments.date} >= span.from7) || ' '
+          || coalesce(sum(${doneExpression}) filter (where ${assignments.date} >= span.from7), 0)
+        from ${assignments}
+        where ${assignments.teamId} = ${teamId} and ${assignments.athleteId} = span.athlete
+          and ${assignments.date} between span.from28 and span.today
+      ) as counts
+    from span`)
+  const figures = new Map<number, TeamFigures>()
   for (const row of rows) {
-    byAthlete.set(Number(row.athleteId), unpack(row.packed).map(([date, assigned, done]) => ({ date: date!, assigned: Number(assigned), done: Number(done) })))
+    const [assigned28, done28, assigned7, done7] = row.counts.split(' ').map(Number) as [number, number, number, number]
+    figures.set(Number(row.athleteId), {
+      daily: unpackDayTotals(row.loads),
+      compliance7: compliance(done7, assigned7),
+      compliance28: compliance(done28, assigned28),
+    })
   }
-  return byAthlete
+  return figures
 }
 
 export interface TeamInsightsRow {
@@ -152,26 +194,20 @@ export interface TeamInsightsRow {
   openPainFlags: number
 }
 
-/** Every row of the team table; four queries for the whole team, whatever its history. */
+/** Every row of the team table; three queries for the whole team, whatever its history. */
 export async function teamInsightsRows(db: Database, teamId: number, squadId?: number, now = new Date()): Promise<TeamInsightsRow[]> {
   const athletes = await listTeamAthletes(db, teamId, squadId)
   if (!athletes.length) return []
   const todays = new Map(athletes.map(athlete => [athlete.id, todayIn(athlete.timezone, now)]))
-  const days = [...todays.values()].sort()
-  const earliest = days[0]!
-  const latest = days.at(-1)!
-  const ids = squadId ? athletes.map(athlete => athlete.id) : undefined
-  const [loads, counts, squadLinks] = await Promise.all([
-    dailyLoadsByAthlete(db, teamId, addDays(earliest, -(RATIO_LOOKBACK_DAYS - 1)), latest, ids),
-    assignedCountsByAthlete(db, teamId, addDays(earliest, -27), latest, ids),
+  const [figures, squadLinks] = await Promise.all([
+    teamFigures(db, teamId, todays),
     db.select({ userId: squadMembers.userId, id: squads.id, name: squads.name })
       .from(squadMembers).innerJoin(squads, eq(squads.id, squadMembers.squadId))
       .where(eq(squads.teamId, teamId)).orderBy(asc(squads.name)),
   ])
   return athletes.map((athlete) => {
     const today = todays.get(athlete.id)!
-    const daily = loads.get(athlete.id) ?? []
-    const assigned = counts.get(athlete.id) ?? []
+    const { daily, compliance7, compliance28 } = figures.get(athlete.id)!
     const weekStart = startOfWeek(today)
     const weekLoad = daily.filter(row => row.day >= weekStart && row.day <= today).reduce((total, row) => total + row.load, 0)
     return {
@@ -179,8 +215,8 @@ export async function teamInsightsRows(db: Database, teamId: number, squadId?: n
       name: athlete.name,
       squads: squadLinks.filter(link => link.userId === athlete.id).map(({ id, name }) => ({ id, name })),
       today,
-      compliance7: complianceOver(assigned, today, 7),
-      compliance28: complianceOver(assigned, today, 28),
+      compliance7,
+      compliance28,
       lastSession: athlete.lastDay,
       weekLoad: roundLoad(weekLoad),
       ...ratiosOn(daily, athlete.firstDay, today),

@@ -79,6 +79,18 @@ describe('server-side sessions', () => {
     expect((await phone.get('/api/me')).status).toBe(401)
   })
 
+  it('a session the server read a moment ago counts as ended at once when another device ends it', async () => {
+    const { coach, email } = await registerCoach(running.stack)
+    const phone = await signInAgain(email)
+    // Read twice: the second read finds the cookie already unsealed (server/plugins/unsealed-sessions.ts).
+    expect((await coach.get('/api/_auth/session')).status).toBe(200)
+    const before = await coach.get<{ user?: { email: string } }>('/api/_auth/session')
+    expect(before.status).toBe(200)
+    expect(before.data.user?.email).toBe(email)
+    expect((await phone.post('/api/me/sign-out-everywhere')).status).toBe(200)
+    expect((await coach.get('/api/_auth/session')).status).toBe(401)
+  })
+
   it('removing a member from a team ends their sessions there', async () => {
     const { coach, teamId } = await registerCoach(running.stack)
     const { athlete, userId } = await addAthlete(running.stack, coach)

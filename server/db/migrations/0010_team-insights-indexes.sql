@@ -1,0 +1,2 @@
+CREATE INDEX `assignments_team_athlete_date_status_idx` ON `assignments` (`team_id`,`athlete_id`,`date`,`status`);--> statement-breakpoint
+CREATE INDEX `session_logs_team_athlete_day_load_idx` ON `session_logs` (`team_id`,`athlete_id`,`day`,`load`);
