@@ -2,7 +2,7 @@
 // app on a freshly seeded demo club; prints one table of figures as ratios to the yardstick, then the
 // entry-logging, player, Lighthouse and insights figures. Stops everything it started.
 import { spawn, type ChildProcess } from 'node:child_process'
-import { existsSync, readFileSync } from 'node:fs'
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { gzipSync } from 'node:zlib'
 import autocannon from 'autocannon'
@@ -18,6 +18,8 @@ const CONNECTIONS = 10
 const DEMO_PASSWORD = 'switchback-demo'
 const bare = join(root, 'bench/bare')
 // BENCH_PARTS picks parts of the run (comma-separated): reads, entries, player, lighthouse, timer, insights; default all.
+// BENCH_LIGHTHOUSE_DIR, when set, keeps each page's full Lighthouse report there as JSON (today.json, session-<id>.json)
+// and its trace (today.trace.json, for DevTools' performance panel).
 const PARTS = new Set((process.env.BENCH_PARTS ?? 'reads,entries,player,lighthouse,timer,insights').split(',').map(part => part.trim()))
 
 function run(command: string, args: string[], options: { cwd?: string, env?: Record<string, string> } = {}) {
@@ -161,6 +163,12 @@ async function lighthouseScores(url: string, cookie: string, paths: string[]) {
     const scores = []
     for (const path of paths) {
       const result = await lighthouse(`${url}${path}`, { port: chrome.port, output: 'json', logLevel: 'error', extraHeaders: { Cookie: cookie }, onlyCategories: ['performance', 'accessibility', 'best-practices'] })
+      if (process.env.BENCH_LIGHTHOUSE_DIR) {
+        mkdirSync(process.env.BENCH_LIGHTHOUSE_DIR, { recursive: true })
+        const name = path.split('/').filter(Boolean).join('-') || 'home'
+        writeFileSync(join(process.env.BENCH_LIGHTHOUSE_DIR, `${name}.json`), JSON.stringify(result!.lhr, null, 1))
+        writeFileSync(join(process.env.BENCH_LIGHTHOUSE_DIR, `${name}.trace.json`), JSON.stringify(result!.artifacts.Trace))
+      }
       const categories = result!.lhr.categories
       const audit = (id: string) => result!.lhr.audits[id]?.numericValue ?? Number.NaN
       scores.push({

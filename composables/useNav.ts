@@ -1,6 +1,8 @@
 import { plural } from '#shared/utils/vocabulary'
-import type { Component } from 'vue'
-import { CalendarCheck, CalendarDays, CalendarRange, ChartLine, Clapperboard, LayoutDashboard, Library, ListOrdered, NotebookPen, TrendingUp, UserRound, Users } from 'lucide-vue-next'
+import { h, type Component, type FunctionalComponent } from 'vue'
+import { CalendarCheck, CalendarRange, Clapperboard, NotebookPen, TrendingUp, UserRound } from 'lucide-vue-next'
+import { LazyNavCoachIcon } from '#components'
+import type { NavCoachIconName } from '~/components/nav/NavCoachIcon.vue'
 
 export interface NavLink {
   to: string
@@ -8,6 +10,22 @@ export interface NavLink {
   /** A count shown beside the label, with words for screen readers. */
   badge?: { count: number, label: string }
   icon: Component
+}
+
+/** An icon of the coaches' navigation, loaded with the first coach page rather than with every athlete's page. */
+export function coachNavIcon(name: NavCoachIconName): FunctionalComponent {
+  const icon: FunctionalComponent = (_props, { attrs }) => h(LazyNavCoachIcon, { ...attrs, name })
+  icon.inheritAttrs = false
+  return icon
+}
+// Made once, so a link keeps the same icon component each time the list is worked out again.
+const coachIcons = {
+  overview: coachNavIcon('overview'),
+  library: coachNavIcon('library'),
+  routines: coachNavIcon('routines'),
+  planner: coachNavIcon('planner'),
+  insights: coachNavIcon('insights'),
+  team: coachNavIcon('team'),
 }
 
 /** The main navigation for the signed-in role. */
@@ -21,14 +39,14 @@ export function useNav() {
     if (!loggedIn.value) return []
     if (isCoach.value) {
       return [
-        { to: '/coach', label: 'Overview', icon: LayoutDashboard },
-        { to: '/exercises', label: 'Library', icon: Library },
-        { to: '/routines', label: 'Routines', icon: ListOrdered },
-        { to: '/planner', label: 'Planner', icon: CalendarDays },
+        { to: '/coach', label: 'Overview', icon: coachIcons.overview },
+        { to: '/exercises', label: 'Library', icon: coachIcons.library },
+        { to: '/routines', label: 'Routines', icon: coachIcons.routines },
+        { to: '/planner', label: 'Planner', icon: coachIcons.planner },
         { to: '/blocks', label: 'Blocks', icon: CalendarRange },
-        { to: '/insights', label: 'Insights', icon: ChartLine, badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
+        { to: '/insights', label: 'Insights', icon: coachIcons.insights, badge: openPainFlags.value ? { count: openPainFlags.value, label: plural(openPainFlags.value, 'open pain report') } : undefined },
         { to: '/reviews', label: 'Reviews', icon: Clapperboard, badge: openReviews.value ? { count: openReviews.value, label: plural(openReviews.value, 'clip waiting for an answer', 'clips waiting for an answer') } : undefined },
-        { to: '/team', label: 'Team', icon: Users },
+        { to: '/team', label: 'Team', icon: coachIcons.team },
       ]
     }
     return [
