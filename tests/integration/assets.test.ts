@@ -19,6 +19,14 @@ describe('static assets', () => {
     }
   })
 
+  it('rendered pages fetch their module scripts and preloads at low priority, after the markup, styles and fonts', async () => {
+    const page = await (await fetch(`${running.stack.url}/login`)).text()
+    const moduleTags = [...page.matchAll(/<(?:link\b[^>]*\brel="modulepreload"|script\b[^>]*\btype="module")[^>]*>/g)].map(match => match[0])
+    expect(moduleTags.length).toBeGreaterThan(1)
+    for (const tag of moduleTags) expect(tag).toMatch(/\bfetchpriority="low"/)
+    expect(page).not.toMatch(/<link\b[^>]*\brel="stylesheet"[^>]*\bfetchpriority=/)
+  })
+
   it('rendered pages go out compressed by what the browser accepts, and plain to a client that asks for nothing', async () => {
     // node:http, not fetch: fetch would undo the compression and always ask for it.
     const get = (acceptEncoding?: string) => new Promise<{ encoding?: string, vary: string, body: Buffer }>((resolve, reject) => {
