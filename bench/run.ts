@@ -190,12 +190,19 @@ async function lighthouseScores(url: string, cookie: string, paths: string[]) {
 }
 
 /** 50 athletes logging every set of a session at once: acknowledged writes against rows stored. */
-async function logSets(databaseUrl: string, url: string) {
+async function logSets(databaseUrl: string, url: string, serverPid?: number) {
   console.log('Logging sets: 50 athletes at once…')
   const { athletes } = await seedLoggingAthletes(databaseUrl, url, 50, 60)
+  // CPU spent by the server and by this process (the 50 athletes' requests; it also hosts the object store and
+  // the mail catcher, idle here): the two share the machine's cores, so either can be what bounds the rate.
+  const serverCpuBefore = cpuMsOf(serverPid)
+  const ownCpuBefore = process.cpuUsage()
   const started = performance.now()
   const acknowledged = await logEverything(athletes)
   const elapsed = (performance.now() - started) / 1000
+  const serverCpuMs = serverCpuBefore === undefined ? undefined : cpuMsOf(serverPid)! - serverCpuBefore
+  const ownCpu = process.cpuUsage(ownCpuBefore)
+  const writes = acknowledged.latenciesMs.length
   const db = createClient({ url: databaseUrl, timeout: 5000 })
   const stored = Number((await db.execute(`select count(*) as n from entry_logs where session_id in (${athletes.map(a => a.sessionId).join(',')})`)).rows[0]!.n)
   db.close()
@@ -205,6 +212,9 @@ async function logSets(databaseUrl: string, url: string) {
     stored,
     perSecond: acknowledged.keys.size / elapsed,
     p99: sortedLatency[Math.ceil(0.99 * sortedLatency.length) - 1] ?? 0,
+    serverCpuMsPerWrite: serverCpuMs === undefined ? undefined : serverCpuMs / writes,
+    loadCpuMsPerWrite: (ownCpu.user + ownCpu.system) / 1000 / writes,
+    elapsed,
   }
 }
 
@@ -258,7 +268,7 @@ async function main() {
       }
     }
 
-    const entries = PARTS.has('entries') ? await logSets(stack.databaseUrl, app.url) : undefined
+    const entries = PARTS.has('entries') ? await logSets(stack.databaseUrl, app.url, app.child.pid) : undefined
 
     console.log('Opening the session player cold in Chromium…')
     const player = PARTS.has('player') ? await playerScripts(app.url, athlete.cookie, sessionPath) : undefined
@@ -277,6 +287,7 @@ async function main() {
     }
     console.log('')
     if (entries) console.log(`Entries: ${entries.acknowledged} acknowledged · ${entries.stored} stored · ${entries.perSecond.toFixed(0)} acknowledged writes/s · p99 ${entries.p99.toFixed(1)} ms (50 athletes at once)`)
+    if (entries) console.log(`  CPU per write: server ${entries.serverCpuMsPerWrite?.toFixed(3) ?? '—'} ms · the 50 athletes' requests (this process) ${entries.loadCpuMsPerWrite.toFixed(3)} ms · ${entries.elapsed.toFixed(1)} s in all`)
     if (player) {
       console.log(`Session player (${sessionPath}, cold): ${player.count} scripts · ${player.gzippedKb.toFixed(1)} KB gzipped · ${player.rawKb.toFixed(1)} KB raw`)
       console.log(`  largest: ${player.largest.map(item => `${item.script.replace('/_nuxt/', '')} ${item.gzippedKb.toFixed(1)} KB`).join(' · ')}`)
