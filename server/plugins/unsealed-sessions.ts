@@ -1,11 +1,10 @@
 import { defu } from 'defu'
 import { unsealSession, type H3Event, type SessionConfig } from 'h3'
+import { ExpiringCache } from '../utils/expiring-cache'
 
 /** How long an unsealed session cookie is kept; the sign-in behind it is still checked on every request. */
 export const UNSEALED_SESSION_MS = 30_000
 const MAX_ENTRIES = 2000
-
-interface Kept { session: string, keptUntil: number }
 
 // nuxt-auth-utils reads the session through h3's useSession, which unseals the cookie (key derivation, HMAC,
 // decryption) every time: every rendered page asks /api/_auth/session, so every render paid for it. h3 looks
@@ -23,23 +22,18 @@ export default defineNitroPlugin((nitroApp) => {
   const name = config.name
   if (!name || !config.password) return
   const headerName = typeof config.sessionHeader === 'string' ? config.sessionHeader.toLowerCase() : `x-${name.toLowerCase()}-session`
-  const kept = new Map<string, Kept>()
+  // Unsealed sessions, serialised, by the sealed value.
+  const kept = new ExpiringCache<string>(MAX_ENTRIES)
 
   async function unsealed(event: H3Event, sealed: string): Promise<string | undefined> {
     const hit = kept.get(sealed)
-    kept.delete(sealed)
-    if (hit && hit.keptUntil > Date.now()) {
-      // Most recently used last, so the oldest is first to go when the cache is full.
-      kept.set(sealed, hit)
-      return hit.session
-    }
+    if (hit) return hit
     const session = await unsealSession(event, config, sealed).catch(() => undefined)
     // Anything h3 would not take as it is (it starts a new session instead) is left to h3.
     if (!session || typeof session.id !== 'string' || !session.id || typeof session.createdAt !== 'number') return undefined
     const keptUntil = Math.min(Date.now() + UNSEALED_SESSION_MS, config.maxAge ? session.createdAt + config.maxAge * 1000 : Infinity)
     const serialised = JSON.stringify(session)
-    if (kept.size >= MAX_ENTRIES) kept.delete(kept.keys().next().value!)
-    kept.set(sealed, { session: serialised, keptUntil })
+    kept.set(sealed, serialised, keptUntil)
     return serialised
   }
 

@@ -1,6 +1,7 @@
 import type { H3Event } from 'h3'
 import { databaseChangeMark } from '../db/prepared-reads'
 import type { Caller } from './auth'
+import { ExpiringCache } from './expiring-cache'
 
 /**
  * Answers kept until anything is written to the database (by this process or any other: SQLite's
@@ -9,10 +10,11 @@ import type { Caller } from './auth'
  * alone: "today" in each athlete's time zone, an invitation running out. See docs/performance.md.
  */
 export class KeptAnswers<Extra = undefined> {
-  private readonly kept = new Map<string, { mark: string, body: string, extra: Extra, keptUntil: number }>()
-  private keptChars = 0
+  private readonly kept: ExpiringCache<{ mark: string, body: string, extra: Extra }>
 
-  constructor(private readonly maxTotalChars: number, private readonly maxOneChars: number) {}
+  constructor(maxTotalChars: number, private readonly maxOneChars: number) {
+    this.kept = new ExpiringCache(maxTotalChars, answer => answer.body.length)
+  }
 
   /** The mark answers are kept under now; undefined when nothing can be kept (switched off, or no local file). */
   static async currentMark() {
@@ -22,26 +24,12 @@ export class KeptAnswers<Extra = undefined> {
 
   get(key: string, mark: string) {
     const hit = this.kept.get(key)
-    if (!hit || hit.mark !== mark || hit.keptUntil <= Date.now()) return undefined
-    // Most recently used last, so the oldest is first to go when the store is full.
-    this.kept.delete(key)
-    this.kept.set(key, hit)
-    return hit
+    return hit?.mark === mark ? hit : undefined
   }
 
   set(key: string, mark: string, body: string, extra: Extra) {
-    this.forget(key)
-    if (body.length > this.maxOneChars) return
-    while (this.keptChars + body.length > this.maxTotalChars) this.forget(this.kept.keys().next().value!)
-    this.kept.set(key, { mark, body, extra, keptUntil: Date.now() + useServerConfig().answerCacheMs })
-    this.keptChars += body.length
-  }
-
-  private forget(key: string) {
-    const entry = this.kept.get(key)
-    if (!entry) return
-    this.kept.delete(key)
-    this.keptChars -= entry.body.length
+    if (body.length > this.maxOneChars) this.kept.delete(key)
+    else this.kept.set(key, { mark, body, extra }, Date.now() + useServerConfig().answerCacheMs)
   }
 }
 

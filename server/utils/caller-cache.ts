@@ -1,4 +1,5 @@
 import type { Caller } from './auth'
+import { ExpiringCache } from './expiring-cache'
 
 /**
  * A small in-process cache of who is calling, keyed by the sealed session cookie exactly as the browser
@@ -12,9 +13,9 @@ import type { Caller } from './auth'
 export const CALLER_CACHE_MS = 30_000
 const MAX_ENTRIES = 2000
 
-interface Entry { caller: Caller, tokenHash: string, expiresAt: number }
+interface Entry { caller: Caller, tokenHash: string }
 
-const entries = new Map<string, Entry>()
+const entries = new ExpiringCache<Entry>(MAX_ENTRIES)
 // Bumped by every forget, so a lookup that read a sign-in just before it was revoked is not remembered.
 let generation = 0
 
@@ -24,34 +25,21 @@ export function callerGeneration() {
 }
 
 export function cachedCaller(cookie: string): Entry | undefined {
-  const entry = entries.get(cookie)
-  if (!entry) return undefined
-  if (entry.expiresAt <= Date.now()) {
-    entries.delete(cookie)
-    return undefined
-  }
-  // Most recently used last, so the oldest is first to go when the cache is full.
-  entries.delete(cookie)
-  entries.set(cookie, entry)
-  return entry
+  return entries.get(cookie)
 }
 
 export function rememberCaller(cookie: string, caller: Caller, tokenHash: string, signInEndsAt: number, lookedUpAt: number) {
   if (lookedUpAt !== generation) return
-  if (entries.size >= MAX_ENTRIES) entries.delete(entries.keys().next().value!)
-  entries.set(cookie, { caller, tokenHash, expiresAt: Math.min(Date.now() + CALLER_CACHE_MS, signInEndsAt) })
+  entries.set(cookie, { caller, tokenHash }, Math.min(Date.now() + CALLER_CACHE_MS, signInEndsAt))
 }
 
 /** Drops every cached caller matching all the given fields (sign-ins by token hash, a person, a team). */
 export function forgetCallers(match: { tokenHashes?: Iterable<string>, userId?: number, teamId?: number }) {
   generation++
   const hashes = match.tokenHashes ? new Set(match.tokenHashes) : undefined
-  for (const [cookie, entry] of entries) {
-    if (hashes && !hashes.has(entry.tokenHash)) continue
-    if (match.userId !== undefined && entry.caller.userId !== match.userId) continue
-    if (match.teamId !== undefined && entry.caller.teamId !== match.teamId) continue
-    entries.delete(cookie)
-  }
+  entries.deleteWhere(entry => (!hashes || hashes.has(entry.tokenHash))
+    && (match.userId === undefined || entry.caller.userId === match.userId)
+    && (match.teamId === undefined || entry.caller.teamId === match.teamId))
 }
 
 export function cachedCallerCount() {
