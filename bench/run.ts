@@ -20,6 +20,8 @@ const bare = join(root, 'bench/bare')
 // BENCH_PARTS picks parts of the run (comma-separated): reads, entries, player, lighthouse, timer, insights; default all.
 // BENCH_LIGHTHOUSE_DIR, when set, keeps each page's full Lighthouse report there as JSON (today.json, session-<id>.json)
 // and its trace (today.trace.json, for DevTools' performance panel).
+// Each of the 50 logging athletes sends this many sets: 6,000 writes, a few seconds of load.
+const ENTRY_ROUNDS = 120
 const PARTS = new Set((process.env.BENCH_PARTS ?? 'reads,entries,player,lighthouse,timer,insights').split(',').map(part => part.trim()))
 
 function run(command: string, args: string[], options: { cwd?: string, env?: Record<string, string> } = {}) {
@@ -192,7 +194,7 @@ async function lighthouseScores(url: string, cookie: string, paths: string[]) {
 /** 50 athletes logging every set of a session at once: acknowledged writes against rows stored. */
 async function logSets(databaseUrl: string, url: string, serverPid?: number) {
   console.log('Logging sets: 50 athletes at once…')
-  const { athletes } = await seedLoggingAthletes(databaseUrl, url, 50, 60)
+  const { athletes } = await seedLoggingAthletes(databaseUrl, url, 50, ENTRY_ROUNDS)
   // CPU spent by the server and by this process (the 50 athletes' requests; it also hosts the object store and
   // the mail catcher, idle here): the two share the machine's cores, so either can be what bounds the rate.
   const serverCpuBefore = cpuMsOf(serverPid)
