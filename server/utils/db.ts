@@ -21,4 +21,20 @@ export async function closeDb() {
   db?.$client.close()
 }
 
+/**
+ * A statement built once per database (Drizzle's `.prepare()` with `sql.placeholder` arguments) instead of on
+ * every request: building a query costs more than running it on a small indexed lookup (docs/performance.md).
+ */
+export function builtOnce<T>(build: (db: Database) => T): (db: Database) => T {
+  const built = new WeakMap<Database, T>()
+  return (db) => {
+    let statement = built.get(db)
+    if (!statement) {
+      statement = build(db)
+      built.set(db, statement)
+    }
+    return statement
+  }
+}
+
 export * as tables from '../db/schema'

@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm'
+import { and, eq, sql } from 'drizzle-orm'
 import type { Database } from '../db/client'
 import { assignments, entryLogs, memberships, sessionLogs, users } from '../db/schema'
 import type { Caller } from './auth'
@@ -13,11 +13,15 @@ export async function findOwnAssignment(db: Database, caller: Caller, id: number
   return row
 }
 
+// Every set an athlete logs looks its session up first: built once, not on every request.
+const ownSessionFor = builtOnce(db => db.select().from(sessionLogs)
+  .where(and(eq(sessionLogs.id, sql.placeholder('id')), eq(sessionLogs.teamId, sql.placeholder('teamId')), eq(sessionLogs.athleteId, sql.placeholder('athleteId'))))
+  .limit(1)
+  .prepare())
+
 /** A session the caller logs into: their own. */
 export async function findOwnSession(db: Database, caller: Caller, id: number) {
-  const [row] = await db.select().from(sessionLogs)
-    .where(and(eq(sessionLogs.id, id), eq(sessionLogs.teamId, caller.teamId), eq(sessionLogs.athleteId, caller.userId)))
-    .limit(1)
+  const row = await ownSessionFor(db).get({ id, teamId: caller.teamId, athleteId: caller.userId })
   if (!row) notFound('No such session')
   return row
 }

@@ -1,46 +1,32 @@
 import { and, asc, eq, gte, lte, sql } from 'drizzle-orm'
 import type { AssignmentSnapshot } from '#shared/types/domain'
-import type { Database } from '../../db/client'
 import { assignments } from '../../db/schema'
 import { myAssignmentRangeSchema } from '#shared/schemas/planner'
 import { shownStatus } from '#shared/utils/assignment-status'
 import { addDays, todayIn } from '#shared/utils/dates'
 
 // The same statement for every athlete, built once per database instead of on every request.
-const listQueries = new WeakMap<Database, ReturnType<typeof buildList>>()
-
-function buildList(db: Database) {
-  return db.select({
-    id: assignments.id,
-    date: assignments.date,
-    // Only the parts of the snapshot the list shows, read in SQL instead of parsing every snapshot.
-    title: sql<string>`json_extract(${assignments.snapshot}, '$.title')`,
-    category: sql<AssignmentSnapshot['category']>`json_extract(${assignments.snapshot}, '$.category')`,
-    exerciseCount: sql<number>`coalesce(json_array_length(${assignments.snapshot}, '$.exercises'), 0)`,
-    block: sql<string | null>`json_extract(${assignments.snapshot}, '$.block')`,
-    note: assignments.note,
-    status: assignments.status,
-    seriesId: assignments.seriesId,
-  }).from(assignments)
-    .where(and(
-      eq(assignments.teamId, sql.placeholder('teamId')),
-      eq(assignments.athleteId, sql.placeholder('athleteId')),
-      gte(assignments.date, sql.placeholder('from')),
-      lte(assignments.date, sql.placeholder('to')),
-    ))
-    .orderBy(asc(assignments.date), asc(assignments.id))
-    .limit(500)
-    .prepare()
-}
-
-function listFor(db: Database) {
-  let query = listQueries.get(db)
-  if (!query) {
-    query = buildList(db)
-    listQueries.set(db, query)
-  }
-  return query
-}
+const listFor = builtOnce(db => db.select({
+  id: assignments.id,
+  date: assignments.date,
+  // Only the parts of the snapshot the list shows, read in SQL instead of parsing every snapshot.
+  title: sql<string>`json_extract(${assignments.snapshot}, '$.title')`,
+  category: sql<AssignmentSnapshot['category']>`json_extract(${assignments.snapshot}, '$.category')`,
+  exerciseCount: sql<number>`coalesce(json_array_length(${assignments.snapshot}, '$.exercises'), 0)`,
+  block: sql<string | null>`json_extract(${assignments.snapshot}, '$.block')`,
+  note: assignments.note,
+  status: assignments.status,
+  seriesId: assignments.seriesId,
+}).from(assignments)
+  .where(and(
+    eq(assignments.teamId, sql.placeholder('teamId')),
+    eq(assignments.athleteId, sql.placeholder('athleteId')),
+    gte(assignments.date, sql.placeholder('from')),
+    lte(assignments.date, sql.placeholder('to')),
+  ))
+  .orderBy(asc(assignments.date), asc(assignments.id))
+  .limit(500)
+  .prepare())
 
 /** The caller's own assignments (default: today and the next four weeks, plus `missedDays` before today), in their time zone. */
 export default defineEventHandler(async (event) => {
