@@ -11,6 +11,11 @@ export type Database = LibSQLDatabase<typeof schema> & { $client: Client }
 
 /** How long a write waits for another process's lock before the request answers 503. */
 export const BUSY_TIMEOUT_MS = 5000
+/**
+ * How long one try waits for a lock inside libSQL, where the wait stops the whole process; the rest of
+ * BUSY_TIMEOUT_MS is spent in pauses on the event loop between tries (server/db/recycling-client.ts).
+ */
+const LOCK_TRY_MS = 25
 
 export const defaultDatabaseUrl = 'file:.data/switchback.db'
 
@@ -18,7 +23,7 @@ export const defaultDatabaseUrl = 'file:.data/switchback.db'
  * Opens a database by URL. Plain Node (no Nuxt), so scripts, seeds and benchmarks share it; the server
  * passes its config (server/utils/db.ts), scripts pass their own environment.
  */
-export async function openDatabase(url = defaultDatabaseUrl, authToken?: string): Promise<Database> {
+export async function openDatabase(url = defaultDatabaseUrl, authToken?: string, lockPatienceMs = BUSY_TIMEOUT_MS): Promise<Database> {
   if (url.startsWith('file:')) {
     // libSQL does not create folders for a file database.
     const file = url.slice('file:'.length)
@@ -27,9 +32,13 @@ export async function openDatabase(url = defaultDatabaseUrl, authToken?: string)
   // The client keeps a pool of connections (a transaction holds its own), and a PRAGMA reaches only the
   // connection that ran it: the busy timeout goes in the options so that every connection waits for a
   // lock instead of failing at once. WAL is a property of the file, so setting it once is enough.
-  const connect = () => createClient({ url, authToken, timeout: BUSY_TIMEOUT_MS })
+  // A local file waits for locks in short tries with pauses between them; a remote server waits itself.
   const file = localFilePath(url)
-  const client = file ? recyclingClient(() => withPreparedReads(connect(), file, BUSY_TIMEOUT_MS)) : url.startsWith('file:') ? recyclingClient(connect) : connect()
+  const client = file
+    ? recyclingClient(() => withPreparedReads(createClient({ url, authToken, timeout: LOCK_TRY_MS }), file, LOCK_TRY_MS), lockPatienceMs)
+    : url.startsWith('file:')
+      ? recyclingClient(() => createClient({ url, authToken, timeout: LOCK_TRY_MS }), lockPatienceMs)
+      : createClient({ url, authToken, timeout: BUSY_TIMEOUT_MS })
   if (url.startsWith('file:')) {
     await client.execute('PRAGMA journal_mode = WAL')
   }

@@ -14,16 +14,27 @@ interface Generation {
   retired: boolean
 }
 
+const pause = (ms: number) => new Promise(resolve => setTimeout(resolve, ms))
+
 /**
- * A local libSQL client that replaces itself after a lock error.
+ * A local libSQL client that replaces itself after a lock error, and waits for a lock without holding up
+ * the process.
  *
  * When a write gives up on a lock (SQLITE_BUSY after the busy timeout), libSQL 0.5 leaves the failed
  * statement un-reset on its connection: that connection keeps the write lock, and every later write
  * through it is silently left uncommitted. Closing the client is the only public way to release it, so
  * after such an error new work goes to a fresh client and the old one is closed once its open
  * transactions (which hold their own connections) have ended.
+ *
+ * libSQL waits for a lock inside the native call, so a long busy timeout stops every other request of the
+ * process for as long (a write waiting 5 s on another process's lock froze reads for 5 s). The clients
+ * `open` makes should therefore have a short busy timeout: a statement, batch or transaction start
+ * (`BEGIN IMMEDIATE`, which takes the write lock) that meets a lock is tried again on a fresh client after a
+ * pause on the event loop, until `patienceMs` have passed; then the lock error is thrown. Trying again is
+ * safe because each of those is atomic: one that failed on a lock wrote nothing. `executeMultiple` and
+ * `migrate` are not, and are tried once.
  */
-export function recyclingClient(open: () => Client): Client {
+export function recyclingClient(open: () => Client, patienceMs = 0): Client {
   let current: Generation = { client: open(), openTransactions: 0, retired: false }
 
   const closeIfIdle = (generation: Generation) => {
@@ -42,6 +53,21 @@ export function recyclingClient(open: () => Client): Client {
     catch (error) {
       if (isLockError(error)) retire(generation)
       throw error
+    }
+  }
+  const patiently = async <T>(work: (generation: Generation) => Promise<T>): Promise<T> => {
+    const giveUpAt = Date.now() + patienceMs
+    for (let attempt = 0; ; attempt += 1) {
+      const generation = current
+      try {
+        return await guarded(generation, () => work(generation))
+      }
+      catch (error) {
+        const left = giveUpAt - Date.now()
+        if (!isLockError(error) || left <= 0) throw error
+        // 5, 10, 20 … up to 100 ms, jittered so that waiting processes do not retry in step.
+        await pause(Math.min(left, Math.min(100, 5 * 2 ** attempt) * (0.5 + Math.random() / 2)))
+      }
     }
   }
 
@@ -84,13 +110,16 @@ export function recyclingClient(open: () => Client): Client {
       const value = Reflect.get(generation.client, property)
       if (typeof value !== 'function') return value
       if (property === 'transaction') {
-        return async (...args: unknown[]) => {
-          const transaction = await guarded(generation, () => (value as (...a: unknown[]) => Promise<Transaction>).apply(generation.client, args))
+        return (...args: unknown[]) => patiently(async (generation) => {
+          const transaction = await generation.client.transaction(...args as Parameters<Client['transaction']>)
           generation.openTransactions += 1
           return wrapTransaction(generation, transaction)
-        }
+        })
       }
-      if (property === 'execute' || property === 'batch' || property === 'executeMultiple' || property === 'migrate') {
+      if (property === 'execute' || property === 'batch') {
+        return (...args: unknown[]) => patiently(generation => (Reflect.get(generation.client, property) as (...a: unknown[]) => Promise<unknown>).apply(generation.client, args))
+      }
+      if (property === 'executeMultiple' || property === 'migrate') {
         return (...args: unknown[]) => guarded(generation, () => (value as (...a: unknown[]) => Promise<unknown>).apply(generation.client, args))
       }
       if (property === 'close') {

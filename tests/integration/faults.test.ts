@@ -75,9 +75,15 @@ describe('a database that cannot take writes', () => {
     const release = await holdWriteLock()
     let refused: Awaited<ReturnType<typeof athlete.client.post<{ message: string, data?: { requestId?: string } }>>>
     try {
-      refused = await athlete.client.post<{ message: string, data?: { requestId?: string } }>(`/api/sessions/${athlete!.sessionId}/entries`, athlete!.entries[0])
+      let writeAnswered = false
+      const writing = athlete.client.post<{ message: string, data?: { requestId?: string } }>(`/api/sessions/${athlete!.sessionId}/entries`, athlete!.entries[0])
+        .finally(() => (writeAnswered = true))
+      // While the write waits for the lock, the same process answers reads: the wait holds up nothing else.
+      await new Promise(resolve => setTimeout(resolve, 500))
       const read = await athlete!.client.get<unknown[]>('/api/me/assignments')
       expect(read.status).toBe(200)
+      expect(writeAnswered).toBe(false)
+      refused = await writing
     }
     finally {
       await release()

@@ -13,10 +13,10 @@ export interface TempDatabase {
 }
 
 /** A real SQLite file of its own in a fresh temporary folder, opened with the app's client (not migrated). */
-export async function openTempDatabase(name: string): Promise<TempDatabase> {
+export async function openTempDatabase(name: string, lockPatienceMs?: number): Promise<TempDatabase> {
   const dir = mkdtempSync(join(tmpdir(), `switchback-${name}-`))
   const url = `file:${join(dir, `${name}.db`)}`
-  const db = await openDatabase(url)
+  const db = await openDatabase(url, undefined, lockPatienceMs)
   return {
     url,
     db,
