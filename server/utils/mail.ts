@@ -50,13 +50,16 @@ export function processOutbox(): Promise<number> {
     try {
       const db = await useDb()
       const now = Date.now()
-      const due = db.select({ id: emailOutbox.id }).from(emailOutbox).where(or(
+      const due = (most: number) => db.select({ id: emailOutbox.id }).from(emailOutbox).where(or(
         and(eq(emailOutbox.status, 'pending'), lte(emailOutbox.nextAttemptAt, new Date(now))),
         and(eq(emailOutbox.status, 'sending'), lte(emailOutbox.lockedUntil, new Date(now))),
-      )).orderBy(emailOutbox.id).limit(20)
+      )).orderBy(emailOutbox.id).limit(most)
+      // An UPDATE takes the write lock even when it matches nothing: look first, so that a quiet outbox
+      // never competes with the athletes' writes (or another replica's) for it.
+      if (!(await due(1)).length) return 0
       const claimed = await db.update(emailOutbox)
         .set({ status: 'sending', lockedUntil: new Date(now + LOCK_MS), attempts: sql`${emailOutbox.attempts} + 1` })
-        .where(inArray(emailOutbox.id, due))
+        .where(inArray(emailOutbox.id, due(20)))
         .returning()
       const { mailFrom } = useServerConfig()
       for (const message of claimed) {
