@@ -11,10 +11,19 @@ export default defineNuxtPlugin((nuxtApp) => {
   // A running session's own logs go first; fetching ahead waits for the next page after it.
   const sessionRunning = () => player.started && !player.finishedSent
 
+  // Fetching ahead (a dozen reads, their cache writes) waits for a quiet moment, so that it never competes
+  // with the page's own start or the first taps on a slow phone.
+  const idle = () => new Promise<void>((resolve) => {
+    if ('requestIdleCallback' in window) requestIdleCallback(() => resolve(), { timeout: 5000 })
+    else setTimeout(resolve, 1000)
+  })
+
   async function upkeep() {
     if (!navigator.onLine) return
     if (!await offline.sendPendingSignOut()) return
-    if (isAthlete() && offline.workerReady && !sessionRunning()) await offline.prefetchAhead()
+    if (!isAthlete() || !offline.workerReady || sessionRunning()) return
+    await idle()
+    if (!sessionRunning()) await offline.prefetchAhead()
   }
 
   nuxtApp.hook('app:mounted', () => {
