@@ -2,7 +2,7 @@
 // demo club, loaded with autocannon on one path at a time; prints each profile's heaviest functions (self
 // time) and leaves the .cpuprofile files for Chrome's DevTools. PROFILE_PATHS picks the paths (comma-separated,
 // default: the library, the athlete's assignments, team insights, /today; `entries` for 50 athletes logging
-// sets at once); BENCH_SECONDS the seconds per path.
+// sets at once); BENCH_SECONDS the seconds per path; ANSWER_CACHE_MS=0 keeps no answers or pages.
 import { mkdtempSync, readdirSync, readFileSync } from 'node:fs'
 import { spawn } from 'node:child_process'
 import { tmpdir } from 'node:os'
@@ -52,7 +52,9 @@ async function profiledApp(env: Record<string, string>, dir: string, name: strin
 }
 
 async function main() {
-  const stack = await startStack({ OUTBOX_INTERVAL_MS: '600000' }, { startApp: false })
+  // ANSWER_CACHE_MS=0 profiles every answer computed, as the first read after a write is.
+  const keep = process.env.ANSWER_CACHE_MS === undefined ? {} : { ANSWER_CACHE_MS: process.env.ANSWER_CACHE_MS }
+  const stack = await startStack({ OUTBOX_INTERVAL_MS: '600000', ...keep }, { startApp: false })
   try {
     await new Promise<void>((resolveRun, reject) => {
       const child = spawn(join(root, 'node_modules/.bin/tsx'), [join(root, 'seeds/index.ts')], { cwd: root, env: { ...process.env, ...stack.env }, stdio: ['ignore', 'ignore', 'inherit'] })
