@@ -56,6 +56,28 @@ async function logbookFor(assignmentId: number) {
 }
 
 describe('the session player', () => {
+  it('shows the steps whether the briefing came from the server or was drawn after following a link from Today', async () => {
+    const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, { ...circuit, title: 'Quarry steps circuit' })
+    const context = await newContext(running.browser, 'phone')
+    await signIn(context)
+    const page = await context.newPage()
+    const steps = page.getByRole('region', { name: 'Steps' })
+    // From the server: the table is in the page's HTML and stays as it was (it is never hydrated).
+    await page.goto(`${running.stack.url}/session/${id}`)
+    await page.getByRole('button', { name: 'Start session' }).waitFor()
+    await page.waitForLoadState('networkidle')
+    expect(await steps.getByRole('row').count()).toBeGreaterThan(5)
+    expect(await steps.textContent()).toContain('Goblet squat')
+    // Drawn in the browser: Today's link navigates without a page load, and the table loads its own code.
+    await page.goto(`${running.stack.url}/today`)
+    await page.waitForLoadState('networkidle')
+    await page.getByRole('link', { name: /Quarry steps circuit/ }).first().click()
+    await page.waitForURL(`**/session/${id}`)
+    await expect.poll(() => steps.getByRole('row').count(), { timeout: 15_000 }).toBeGreaterThan(5)
+    expect(await steps.textContent()).toContain('Front plank')
+    await context.close()
+  })
+
   it('runs a gym circuit on a phone, shows the knee caution, and keeps every set through an offline spell', async () => {
     const { id } = await running.fixtures.assignment(team.teamId, athlete.userId, circuit)
     const context = await newContext(running.browser, 'phone')
