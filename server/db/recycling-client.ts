@@ -31,8 +31,8 @@ const pause = (ms: number) => new Promise(resolve => setTimeout(resolve, ms))
  * `open` makes should therefore have a short busy timeout: a statement, batch or transaction start
  * (`BEGIN IMMEDIATE`, which takes the write lock) that meets a lock is tried again on a fresh client after a
  * pause on the event loop, until `patienceMs` have passed; then the lock error is thrown. Trying again is
- * safe because each of those is atomic: one that failed on a lock wrote nothing. `executeMultiple` and
- * `migrate` are not, and are tried once.
+ * safe because each of those is atomic: one that failed on a lock wrote nothing (`migrate` runs its batch in
+ * one transaction too). `executeMultiple` is not atomic, and is tried once.
  */
 export function recyclingClient(open: () => Client, patienceMs = 0): Client {
   let current: Generation = { client: open(), openTransactions: 0, retired: false }
@@ -116,10 +116,10 @@ export function recyclingClient(open: () => Client, patienceMs = 0): Client {
           return wrapTransaction(generation, transaction)
         })
       }
-      if (property === 'execute' || property === 'batch') {
+      if (property === 'execute' || property === 'batch' || property === 'migrate') {
         return (...args: unknown[]) => patiently(generation => (Reflect.get(generation.client, property) as (...a: unknown[]) => Promise<unknown>).apply(generation.client, args))
       }
-      if (property === 'executeMultiple' || property === 'migrate') {
+      if (property === 'executeMultiple') {
         return (...args: unknown[]) => guarded(generation, () => (value as (...a: unknown[]) => Promise<unknown>).apply(generation.client, args))
       }
       if (property === 'close') {

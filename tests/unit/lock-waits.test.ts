@@ -60,6 +60,19 @@ describe('waiting for another connection\'s write lock', () => {
     expect(await labels()).toEqual(['stride 1', 'stride 2'])
   })
 
+  it('waits the same way to apply migrations', async () => {
+    await openWithPatience(5000)
+    const lock = await outsider.transaction('write')
+    const turns = countTurns()
+    setTimeout(() => void lock.rollback(), 400)
+    await db.$client.migrate([
+      { sql: 'insert into sets (label) values (?)', args: ['drill 1'] },
+      { sql: 'insert into sets (label) values (?)', args: ['drill 2'] },
+    ])
+    expect(turns.stop()).toBeGreaterThan(10)
+    expect(await labels()).toEqual(['drill 1', 'drill 2'])
+  })
+
   it('gives up with the lock error after its patience, writes nothing, and the next write goes through', async () => {
     await openWithPatience(300)
     const lock = await outsider.transaction('write')
