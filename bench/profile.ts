@@ -53,7 +53,7 @@ async function profiledApp(env: Record<string, string>, dir: string, name: strin
 
 async function main() {
   // ANSWER_CACHE_MS=0 profiles every answer computed, as the first read after a write is.
-  const keep = process.env.ANSWER_CACHE_MS === undefined ? {} : { ANSWER_CACHE_MS: process.env.ANSWER_CACHE_MS }
+  const keep: Record<string, string> = process.env.ANSWER_CACHE_MS === undefined ? {} : { ANSWER_CACHE_MS: process.env.ANSWER_CACHE_MS }
   const stack = await startStack({ OUTBOX_INTERVAL_MS: '600000', ...keep }, { startApp: false })
   try {
     await new Promise<void>((resolveRun, reject) => {
