@@ -307,6 +307,8 @@ describe('the logbook and profile pages', () => {
     await signIn(context)
     const page = await context.newPage()
     await page.goto(`${running.stack.url}/profile`)
+    // The form comes alive when the page's script has run: typed before that, the fields would be reset.
+    await page.getByRole('button', { name: 'Save profile' }).and(page.locator(':enabled')).waitFor()
     await page.getByLabel('Race distance').selectOption({ label: '10K' })
     await page.getByLabel('Finish time').fill('41:30')
     await page.getByLabel('Birth year').fill('1987')
