@@ -21,7 +21,7 @@ const bare = join(root, 'bench/bare')
 // BENCH_PARTS picks parts of the run (comma-separated): reads, entries, player, lighthouse, timer, insights; default all.
 // BENCH_LIGHTHOUSE_DIR, when set, keeps each run's full Lighthouse report there as JSON (today-1.json,
 // session-<id>-1.json, …) and its trace (today-1.trace.json, for DevTools' performance panel).
-// Lighthouse runs per page; the median run is reported, every run's score printed (BENCH_LIGHTHOUSE_RUNS).
+// Lighthouse runs per page (BENCH_LIGHTHOUSE_RUNS): the median of their scores is reported, every run's score printed.
 const LIGHTHOUSE_RUNS = Number(process.env.BENCH_LIGHTHOUSE_RUNS ?? 5)
 // Each of the 50 logging athletes sends this many sets: 6,000 writes, a few seconds of load.
 const ENTRY_ROUNDS = 120
@@ -194,16 +194,16 @@ async function lighthouseScores(url: string, cookie: string, paths: string[]) {
       // score of five runs about twice as stable as one run. The paint and blocking figures are those of the run
       // Lighthouse's own computeMedianRun picks (closest to the median first paint and time to interactive),
       // whose score is printed too: it can differ from the median score.
-      const median = computeMedianRun(runs)
-      const audit = (id: string) => median.audits[id]?.numericValue ?? Number.NaN
+      const medianRun = computeMedianRun(runs)
+      const audit = (id: string) => medianRun.audits[id]?.numericValue ?? Number.NaN
       const performances = runs.map(lhr => score(lhr, 'performance'))
       const middle = [...performances].sort((a, b) => a - b)
       scores.push({
         path,
         performance: middle.length % 2 ? middle[(middle.length - 1) / 2]! : (middle[middle.length / 2 - 1]! + middle[middle.length / 2]!) / 2,
-        representative: score(median, 'performance'),
-        accessibility: score(median, 'accessibility'),
-        bestPractices: score(median, 'best-practices'),
+        representative: score(medianRun, 'performance'),
+        accessibility: score(medianRun, 'accessibility'),
+        bestPractices: score(medianRun, 'best-practices'),
         firstPaintMs: audit('first-contentful-paint'),
         largestPaintMs: audit('largest-contentful-paint'),
         blockingMs: audit('total-blocking-time'),
