@@ -62,6 +62,25 @@ describe('the session player\'s JavaScript budget', () => {
     expect(scripts.size).toBeGreaterThan(0)
     expect(scripts.size).toBeLessThanOrEqual(MAX_SCRIPTS)
     expect(gzipped).toBeLessThanOrEqual(MAX_GZIPPED_BYTES)
+
+    // The app's start is split into shorter tasks (plugins/yield.client.ts): after the scripts are evaluated,
+    // before hydration, and between the header's hydration and the page's (layouts/default.vue).
+    const yields = await context.newPage()
+    await yields.addInitScript(() => {
+      const scheduler = (window as unknown as { scheduler: { yield: () => Promise<void> } }).scheduler
+      const handBack = scheduler.yield.bind(scheduler)
+      const counted = window as unknown as { yields: number }
+      counted.yields = 0
+      scheduler.yield = () => {
+        counted.yields++
+        return handBack()
+      }
+    })
+    await yields.goto(`${stack.url}/session/${id}`, { waitUntil: 'networkidle' })
+    // Hydrated: the briefing's tick box now enables the start button.
+    await yields.locator('input[name="acknowledge"]').check()
+    await expect.poll(() => yields.getByRole('button', { name: 'Start session' }).isEnabled()).toBe(true)
+    expect(await yields.evaluate(() => (window as unknown as { yields: number }).yields)).toBe(3)
     await context.close()
   })
 })
