@@ -74,6 +74,9 @@ export default defineNuxtConfig({
     // nuxt-auth-utils' client plugin brings its own unctx 3 for one helper the app's unctx 2 has too.
     resolve: { dedupe: ['unctx'], alias: existsSync(nuxtHookable) ? { hookable: nuxtHookable } : {} },
     build: { rollupOptions: { output: { experimentalMinChunkSize: 20_000 } } },
+    // Terser rather than esbuild for the browser's scripts: about 4 % smaller gzipped (the session player's cold
+    // open 109.9 → 105.6 KB, docs/performance.md) for a few more seconds of build. The server's code stays as is.
+    $client: { build: { minify: 'terser' } },
   },
   typescript: { strict: true },
   telemetry: false,

@@ -27,7 +27,7 @@ afterAll(async () => {
 })
 
 describe('the session player\'s JavaScript budget', () => {
-  it('opens cold on a phone with at most 20 scripts and 110 KB of them gzipped', async () => {
+  it('opens cold on a phone with at most 20 scripts and 110 KB of them gzipped, and starts in short tasks', async () => {
     const fixtures = new Fixtures(stack)
     const team = await registerCoach(stack)
     const athlete = await addAthlete(stack, team.coach, { name: 'Wren Holloway' })
