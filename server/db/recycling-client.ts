@@ -1,3 +1,4 @@
+import { setTimeout as pause } from 'node:timers/promises'
 import type { Client, Transaction } from '@libsql/client'
 
 const lockCodes = /^SQLITE_(BUSY|LOCKED)/
@@ -13,8 +14,6 @@ interface Generation {
   openTransactions: number
   retired: boolean
 }
-
-const pause = (ms: number) => new Promise(resolve => setTimeout(resolve, ms))
 
 /**
  * A local libSQL client that replaces itself after a lock error, and waits for a lock without holding up
